@@ -1,0 +1,5 @@
+//! Shared helpers for the host-side checks: tolerances in one place.
+#![forbid(unsafe_code)]
+#![deny(missing_docs)]
+
+pub mod tolerance;
