@@ -8,8 +8,11 @@
 //! All quantities are SI base units: Pa, K, kg/m³, m³/kg, J/kg, J/(kg·K), m/s,
 //! Pa·s. The release itself tabulates MPa and kJ/kg; conversion happens at the
 //! edge of each region module.
-#![no_std]
+#![cfg_attr(not(feature = "std"), no_std)]
 #![forbid(unsafe_code)]
 #![deny(missing_docs)]
 
 pub mod if97;
+
+#[cfg(feature = "generator")]
+pub mod generator;
