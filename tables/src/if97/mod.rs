@@ -9,3 +9,7 @@ mod common;
 pub use common::*;
 
 pub mod region4;
+
+// regions 1, 2, 5, B23 and selection
+mod gibbs;
+pub mod region1;
