@@ -8,7 +8,7 @@
 
 use vapora_host_tests::tolerance::{printed_digits_match, relative_deviation};
 use vapora_tables::if97::Properties;
-use vapora_tables::if97::{b23, region1, region2};
+use vapora_tables::if97::{b23, region1, region2, region5};
 
 /// Digits printed in the verification tables of IAPWS R7-97(2012).
 const PRINTED_DIGITS: i32 = 9;
@@ -270,4 +270,56 @@ fn b23_max_deviation() -> f64 {
 #[test]
 fn b23_check_value_both_directions() {
     b23_max_deviation();
+}
+
+/// IAPWS R7-97(2012) Table 42: Region 5 at T = 1500 K, p = 0.5 MPa;
+/// T = 1500 K, p = 30 MPa; T = 2000 K, p = 30 MPa.
+const TABLE_42: [Row; 3] = [
+    Row {
+        t_k: 1500.0,
+        p_mpa: 0.5,
+        v_m3_kg: 0.138455090e1,
+        h_kj_kg: 0.521976855e4,
+        u_kj_kg: 0.452749310e4,
+        s_kj_kgk: 0.965408875e1,
+        cp_kj_kgk: 0.261609445e1,
+        w_m_s: 0.917068690e3,
+    },
+    Row {
+        t_k: 1500.0,
+        p_mpa: 30.0,
+        v_m3_kg: 0.230761299e-1,
+        h_kj_kg: 0.516723514e4,
+        u_kj_kg: 0.447495124e4,
+        s_kj_kgk: 0.772970133e1,
+        cp_kj_kgk: 0.272724317e1,
+        w_m_s: 0.928548002e3,
+    },
+    Row {
+        t_k: 2000.0,
+        p_mpa: 30.0,
+        v_m3_kg: 0.311385219e-1,
+        h_kj_kg: 0.657122604e4,
+        u_kj_kg: 0.563707038e4,
+        s_kj_kgk: 0.853640523e1,
+        cp_kj_kgk: 0.288569882e1,
+        w_m_s: 0.106736948e4,
+    },
+];
+
+fn table_42_max_deviation() -> f64 {
+    TABLE_42
+        .iter()
+        .map(|row| {
+            let props = region5::properties(row.p_mpa * PA_PER_MPA, row.t_k).unwrap_or_else(|e| {
+                panic!("Table 42: T = {} K, p = {} MPa: {e}", row.t_k, row.p_mpa)
+            });
+            check_row("IAPWS R7-97(2012) Table 42", row, &props)
+        })
+        .fold(0.0, f64::max)
+}
+
+#[test]
+fn region5_table_42() {
+    table_42_max_deviation();
 }

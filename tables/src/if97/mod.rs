@@ -15,3 +15,4 @@ pub mod b23;
 mod gibbs;
 pub mod region1;
 pub mod region2;
+pub mod region5;
