@@ -146,6 +146,32 @@ pub(crate) fn require_finite(values: &[f64]) -> Result<(), FormulationError> {
     }
 }
 
+/// Returns `Err(PressureOutOfRange)` unless every property is finite.
+///
+/// The Gibbs regions accept any p > 0, but below about 1e-300 Pa the
+/// specific volume RT/p overflows f64; such a pressure is reported as out of
+/// range rather than returned as an infinite or NaN property.
+pub(crate) fn require_finite_properties(props: Properties) -> Result<Properties, FormulationError> {
+    let values = [
+        props.density_kg_m3,
+        props.specific_volume_m3_kg,
+        props.enthalpy_j_kg,
+        props.internal_energy_j_kg,
+        props.entropy_j_kgk,
+        props.cp_j_kgk,
+        props.cv_j_kgk,
+        props.speed_of_sound_m_s,
+        props.isentropic_exponent,
+    ];
+    if values.iter().all(|v| v.is_finite()) && props.density_kg_m3 > 0.0 {
+        Ok(props)
+    } else {
+        Err(FormulationError::PressureOutOfRange {
+            pressure_pa: props.pressure_pa,
+        })
+    }
+}
+
 /// `x` raised to an integer power by repeated squaring.
 ///
 /// The region equations are sums of integer powers (exponents −41 … 58);

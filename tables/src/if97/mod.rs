@@ -16,3 +16,4 @@ mod gibbs;
 pub mod region1;
 pub mod region2;
 pub mod region5;
+pub mod regions;

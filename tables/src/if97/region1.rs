@@ -5,7 +5,8 @@
 
 use super::gibbs::{properties_from_gibbs, GibbsDerivatives};
 use super::region4;
-use super::{d2powi, dpowi, powi, require_finite, FormulationError, Properties};
+use super::{d2powi, dpowi, powi, require_finite, require_finite_properties};
+use super::{FormulationError, Properties};
 
 /// Reducing pressure p* of Eq. 7, Pa (16.53 MPa).
 const REDUCING_PRESSURE_PA: f64 = 16.53e6;
@@ -130,5 +131,5 @@ pub fn properties(p_pa: f64, t_k: f64) -> Result<Properties, FormulationError> {
     if !(p_pa >= p_sat * (1.0 - SATURATION_PRESSURE_SLACK) && p_pa <= MAX_PRESSURE_PA) {
         return Err(FormulationError::PressureOutOfRange { pressure_pa: p_pa });
     }
-    Ok(properties_unchecked(p_pa, t_k))
+    require_finite_properties(properties_unchecked(p_pa, t_k))
 }

@@ -10,7 +10,8 @@
 
 use super::gibbs::{properties_from_gibbs, GibbsDerivatives};
 use super::{b23, region1, region4};
-use super::{d2powi, dpowi, powi, require_finite, FormulationError, Properties};
+use super::{d2powi, dpowi, powi, require_finite, require_finite_properties};
+use super::{FormulationError, Properties};
 
 /// Reducing pressure p* of Eqs. 15 and 18, Pa (1 MPa).
 const REDUCING_PRESSURE_PA: f64 = 1.0e6;
@@ -215,8 +216,9 @@ fn max_pressure_pa_at(temperature_k: f64) -> f64 {
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,
 /// [`FormulationError::TemperatureOutOfRange`] outside 273.15–1073.15 K,
-/// [`FormulationError::PressureOutOfRange`] for p ≤ 0 or above the upper
-/// pressure limit at that temperature.
+/// [`FormulationError::PressureOutOfRange`] for p ≤ 0, above the upper
+/// pressure limit at that temperature, or so low (below about 1e-300 Pa)
+/// that the specific volume overflows f64.
 pub fn properties(p_pa: f64, t_k: f64) -> Result<Properties, FormulationError> {
     require_finite(&[p_pa, t_k])?;
     if !(MIN_TEMPERATURE_K..=MAX_TEMPERATURE_K).contains(&t_k) {
@@ -230,7 +232,7 @@ pub fn properties(p_pa: f64, t_k: f64) -> Result<Properties, FormulationError> {
     if !(p_pa > 0.0 && p_pa <= limit) {
         return Err(FormulationError::PressureOutOfRange { pressure_pa: p_pa });
     }
-    Ok(properties_unchecked(p_pa, t_k))
+    require_finite_properties(properties_unchecked(p_pa, t_k))
 }
 
 /// Metastable-vapour properties (supercooled vapour, "wet steam" that has
@@ -278,5 +280,5 @@ pub fn metastable_properties(p_pa: f64, t_k: f64) -> Result<Properties, Formulat
     if props.enthalpy_j_kg < h_liquid + 0.95 * (h_vapour - h_liquid) {
         return Err(FormulationError::TemperatureOutOfRange { temperature_k: t_k });
     }
-    Ok(props)
+    require_finite_properties(props)
 }

@@ -5,7 +5,8 @@
 //! Range: 1073.15 K ≤ T ≤ 2273.15 K and 0 < p ≤ 50 MPa.
 
 use super::gibbs::{properties_from_gibbs, GibbsDerivatives};
-use super::{d2powi, dpowi, powi, require_finite, FormulationError, Properties};
+use super::{d2powi, dpowi, powi, require_finite, require_finite_properties};
+use super::{FormulationError, Properties};
 
 /// Reducing pressure p* of Eq. 32, Pa (1 MPa).
 const REDUCING_PRESSURE_PA: f64 = 1.0e6;
@@ -111,7 +112,8 @@ pub fn properties_unchecked(pressure_pa: f64, temperature_k: f64) -> Properties 
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,
 /// [`FormulationError::TemperatureOutOfRange`] outside 1073.15–2273.15 K,
-/// [`FormulationError::PressureOutOfRange`] for p ≤ 0 or p > 50 MPa.
+/// [`FormulationError::PressureOutOfRange`] for p ≤ 0, p > 50 MPa, or p so
+/// low (below about 1e-300 Pa) that the specific volume overflows f64.
 pub fn properties(p_pa: f64, t_k: f64) -> Result<Properties, FormulationError> {
     require_finite(&[p_pa, t_k])?;
     if !(MIN_TEMPERATURE_K..=MAX_TEMPERATURE_K).contains(&t_k) {
@@ -120,5 +122,5 @@ pub fn properties(p_pa: f64, t_k: f64) -> Result<Properties, FormulationError> {
     if !(p_pa > 0.0 && p_pa <= MAX_PRESSURE_PA) {
         return Err(FormulationError::PressureOutOfRange { pressure_pa: p_pa });
     }
-    Ok(properties_unchecked(p_pa, t_k))
+    require_finite_properties(properties_unchecked(p_pa, t_k))
 }
