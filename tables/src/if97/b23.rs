@@ -51,7 +51,18 @@ pub fn temperature_k_unchecked(pressure_pa: f64) -> f64 {
 
 /// Pressure on the Region 2/3 boundary at a temperature, Pa (Eq. 5).
 ///
-/// Range 623.15 K ≤ T ≤ 863.15 K. Eq. 6 is the exact inverse of Eq. 5.
+/// Range 623.15 K ≤ T ≤ 863.15 K. Eq. 6 is the exact inverse of Eq. 5; the
+/// line is a definition, so there is no accuracy to state beyond f64
+/// rounding.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::b23;
+/// // The check value of the release: 623.15 K ↔ 16.5291643 MPa.
+/// let p = b23::pressure_pa(623.15)?;
+/// assert!((p - 16.529_164_3e6).abs() < 0.1);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinity,
@@ -69,6 +80,14 @@ pub fn pressure_pa(t_k: f64) -> Result<f64, FormulationError> {
 /// Range p_B23(623.15 K) ≤ p ≤ p_B23(863.15 K), i.e. 16.5292 MPa to
 /// 100 MPa as the release rounds them ([`MIN_PRESSURE_PA`],
 /// [`MAX_PRESSURE_PA`]).
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::b23;
+/// let t = b23::temperature_k(16.529_164_3e6)?;
+/// assert!((t - 623.15).abs() < 1e-6);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinity,

@@ -114,9 +114,19 @@ pub fn properties_unchecked(pressure_pa: f64, temperature_k: f64) -> Properties 
 /// (Pa) and temperature `t_k` (K).
 ///
 /// Range: 273.15 K ≤ T ≤ 623.15 K and psat(T)·(1 − 1e-9) ≤ p ≤ 100 MPa
-/// (see [`SATURATION_PRESSURE_SLACK`]). Eq. 7 reproduces IAPWS-95 within the
-/// tolerances of IAPWS R7-97(2012), section 5.1 (e.g. ±0.03 % in v); this
+/// (see [`SATURATION_PRESSURE_SLACK`]). Eq. 7 represents IAPWS-95 within
+/// the permissible tolerances of IAPWS R7-97(2012), section 5.1; this
 /// implementation reproduces the release's Table 5 in every printed digit.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::region1;
+/// // Cold feedwater at 3 MPa, 300 K (the first point of Table 5).
+/// let water = region1::properties(3.0e6, 300.0)?;
+/// assert!((water.density_kg_m3 - 997.85).abs() < 0.01);
+/// assert!((water.enthalpy_j_kg - 115.331e3).abs() < 1.0);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,

@@ -209,9 +209,20 @@ fn max_pressure_pa_at(temperature_k: f64) -> f64 {
 /// Range: 273.15 K ≤ T ≤ 623.15 K for 0 < p ≤ psat(T); 623.15 K < T ≤
 /// 863.15 K for 0 < p ≤ p_B23(T); 863.15 K < T ≤ 1073.15 K for
 /// 0 < p ≤ 100 MPa. At psat(T) and p_B23(T) a relative excess of 1e-9 is
-/// accepted (see [`BOUNDARY_PRESSURE_SLACK`]). Eq. 15 reproduces IAPWS-95
-/// within the tolerances of IAPWS R7-97(2012), section 6.1; this
+/// accepted (see [`BOUNDARY_PRESSURE_SLACK`]). Eq. 15 represents IAPWS-95
+/// within the permissible tolerances of IAPWS R7-97(2012), section 6.1; this
 /// implementation reproduces the release's Table 15 in every printed digit.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::region2;
+/// // Superheated steam at 30 MPa, 700 K (a point of Table 15).
+/// let steam = region2::properties(30.0e6, 700.0)?;
+/// assert!((steam.specific_volume_m3_kg - 5.42947e-3).abs() < 1e-8);
+/// // Eq. 15 stops at the saturation line: 1 MPa at 300 K is liquid.
+/// assert!(region2::properties(1.0e6, 300.0).is_err());
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,
@@ -258,7 +269,18 @@ pub fn metastable_properties_unchecked(pressure_pa: f64, temperature_k: f64) -> 
 /// h ≥ h′ + 0.95·(h″ − h′), with h′ from Region 1 and h″ from Region 2 at
 /// psat. Since Tsat is defined only from 611.213 Pa, that is the lowest
 /// pressure. On the saturated-vapour line Eq. 18 agrees with Eq. 15 within
-/// the consistency stated in the release.
+/// the consistency stated in the release. The accuracy is that of Eq. 18
+/// against IAPWS-95 stated in the release; this implementation reproduces
+/// the release's Table 18 in every printed digit.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::region2;
+/// // Vapour supercooled 3 K below Tsat(1 MPa) = 453.03 K.
+/// let steam = region2::metastable_properties(1.0e6, 450.0)?;
+/// assert!((steam.enthalpy_j_kg - 2768.81e3).abs() < 10.0);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,

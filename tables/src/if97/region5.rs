@@ -105,9 +105,17 @@ pub fn properties_unchecked(pressure_pa: f64, temperature_k: f64) -> Properties 
 /// Region 5 properties (high-temperature steam) at pressure `p_pa` (Pa) and
 /// temperature `t_k` (K).
 ///
-/// Range: 1073.15 K ≤ T ≤ 2273.15 K and 0 < p ≤ 50 MPa. Eq. 32 reproduces
-/// IAPWS-95 within the tolerances of IAPWS R7-97(2012), section 9; this
-/// implementation reproduces the release's Table 42 in every printed digit.
+/// Range: 1073.15 K ≤ T ≤ 2273.15 K and 0 < p ≤ 50 MPa. Eq. 32 has the
+/// accuracy stated in IAPWS R7-97(2012), section 9; this implementation
+/// reproduces the release's Table 42 in every printed digit.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::region5;
+/// let steam = region5::properties(0.5e6, 1500.0)?;
+/// assert!((steam.speed_of_sound_m_s - 917.069).abs() < 0.001);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
 ///
 /// # Errors
 /// [`FormulationError::NotFinite`] for NaN or infinite input,

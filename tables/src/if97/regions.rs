@@ -32,6 +32,16 @@ pub const MAX_PRESSURE_PA: f64 = region1::MAX_PRESSURE_PA;
 /// them (Regions 1/2 and 2 respectively), as the ranges of Eqs. 7, 15 and
 /// the B23 line state them.
 ///
+/// # Example
+/// ```
+/// use vapora_tables::if97::{regions, Region};
+/// assert_eq!(regions::region_pt(3.0e6, 300.0)?, Region::Region1); // subcooled water
+/// assert_eq!(regions::region_pt(0.1e6, 450.0)?, Region::Region2); // superheated steam
+/// assert_eq!(regions::region_pt(25.0e6, 650.0)?, Region::Region3); // near-critical
+/// assert_eq!(regions::region_pt(1.0e6, 1500.0)?, Region::Region5); // very hot steam
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
+///
 /// # Errors
 /// - [`FormulationError::NotFinite`] for NaN or infinite input.
 /// - [`FormulationError::PressureOutOfRange`] for p ≤ 0 or p > 100 MPa.
