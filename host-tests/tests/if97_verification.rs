@@ -1139,6 +1139,7 @@ fn properties_obey_thermodynamic_identities() {
 fn water_boils_at_100_c_at_atmospheric_pressure() {
     // common practice, no source: 101.325 kPa ↔ 100 °C
     let t = region4::saturation_temperature_k(101_325.0).expect("in range");
+    println!("Tsat(101.325 kPa) = {t:.4} K");
     assert!(
         (t - 373.15).abs() <= BOILING_POINT_K,
         "Tsat(101.325 kPa) = {t} K, expected about 373.15 K (deviation {:.4} K)",
@@ -1177,6 +1178,7 @@ fn latent_heat_at_100_c() {
     let liquid = region1::properties(p_sat, t_k).expect("saturated liquid is in Region 1");
     let vapour = region2::properties(p_sat, t_k).expect("saturated vapour is in Region 2");
     let latent = vapour.enthalpy_j_kg - liquid.enthalpy_j_kg;
+    println!("latent heat at 373.15 K: {latent:.1} J/kg (psat = {p_sat:.3} Pa)");
     assert!(
         (latent - 2256.0e3).abs() <= LATENT_HEAT_J_KG,
         "h'' − h' at 373.15 K, psat = {p_sat} Pa: {latent} J/kg, expected about 2256e3 J/kg \
