@@ -3,8 +3,12 @@
 #![cfg(feature = "generator")]
 
 use vapora_tables::generator::emit::{checksum, format_f32};
-use vapora_tables::generator::fit::{evaluate_f32, fit_cubic, sample_positions, to_f32, UniformKnots};
-use vapora_tables::generator::{generate, measure, Config, PhaseSample, SaturatedSample, SaturationSource};
+use vapora_tables::generator::fit::{
+    evaluate_f32, fit_cubic, sample_positions, to_f32, UniformKnots,
+};
+use vapora_tables::generator::{
+    generate, measure, Config, PhaseSample, SaturatedSample, SaturationSource,
+};
 use vapora_tables::if97::region4;
 
 fn fit_max_error(f: impl Fn(f64) -> f64, lo: f64, hi: f64, n: usize) -> f64 {
@@ -38,7 +42,10 @@ fn error_falls_with_the_fourth_power_of_the_step() {
     let e16 = fit_max_error(f64::sin, 0.0, 3.0, 16);
     let e32 = fit_max_error(f64::sin, 0.0, 3.0, 32);
     let ratio = e16 / e32;
-    assert!((10.0..22.0).contains(&ratio), "e16 {e16:e}, e32 {e32:e}, ratio {ratio}");
+    assert!(
+        (10.0..22.0).contains(&ratio),
+        "e16 {e16:e}, e32 {e32:e}, ratio {ratio}"
+    );
     // Interpolation would give h⁴·max|f⁗|/384 = 2.0e-7 here; least squares is as good.
     assert!(e32 < 2.0e-7, "e32 {e32:e}");
 }
@@ -60,7 +67,19 @@ fn partial_data_in_the_first_interval_still_fits() {
 
 #[test]
 fn f32_values_round_trip_through_the_emitted_text() {
-    for v in [0.0f32, -0.0, 1.0, 0.1, -273.16, 1.0e-38, 1.4e-45, 3.4028235e38, 647.096, 22.064e6, 1.0 / 3.0] {
+    for v in [
+        0.0f32,
+        -0.0,
+        1.0,
+        0.1,
+        -273.16,
+        1.0e-38,
+        1.4e-45,
+        3.4028235e38,
+        647.096,
+        22.064e6,
+        1.0 / 3.0,
+    ] {
         let s = format_f32(v);
         let back: f32 = s.parse().unwrap();
         assert_eq!(back.to_bits(), v.to_bits(), "{v} -> {s}");
@@ -97,7 +116,10 @@ impl SaturationSource for Analytic {
         Ok(SaturatedSample {
             pressure_pa: self.saturation_pressure_pa(t_k),
             liquid: phase(1.0),
-            vapour: PhaseSample { density_kg_m3: 0.01 + tau.powi(-2) * 1e-3, ..phase(-1.0) },
+            vapour: PhaseSample {
+                density_kg_m3: 0.01 + tau.powi(-2) * 1e-3,
+                ..phase(-1.0)
+            },
         })
     }
 }
@@ -112,5 +134,9 @@ fn the_whole_pipeline_runs_on_an_analytic_line() {
     assert!(m.near_critical.temperature_k < 1e-3, "{m:?}");
     let text = vapora_tables::generator::emit::emit(&g, &m);
     assert!(text.starts_with("// @generated"));
-    assert_eq!(text, vapora_tables::generator::emit::emit(&g, &m), "emission is deterministic");
+    assert_eq!(
+        text,
+        vapora_tables::generator::emit::emit(&g, &m),
+        "emission is deterministic"
+    );
 }

@@ -14,10 +14,11 @@ use super::{Generated, Table};
 
 /// The command that regenerates the committed file, written into its header.
 pub const REGENERATE_COMMAND: &str =
-    "cargo run -p vapora-tables --features generator --bin vapora-generate -- --output kernel/src/tables.rs";
+    "cargo run -p vapora-tables --features generator --bin vapora-generate -- --output kernel/src/tables/saturation.rs";
 
 /// The header line that precedes the checksummed content.
-pub const CHECKSUM_PREFIX: &str = "// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0x";
+pub const CHECKSUM_PREFIX: &str =
+    "// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0x";
 
 /// Shortest decimal form of `v` that reads back as the same f32.
 ///
@@ -27,7 +28,10 @@ pub const CHECKSUM_PREFIX: &str = "// Content checksum (CRC-32/ISO-HDLC of every
 pub fn format_f32(v: f32) -> String {
     let s = format!("{v:e}");
     let back: f32 = s.parse().unwrap_or(f32::NAN);
-    assert!(back.to_bits() == v.to_bits(), "f32 {v} does not round-trip through {s}");
+    assert!(
+        back.to_bits() == v.to_bits(),
+        "f32 {v} does not round-trip through {s}"
+    );
     s
 }
 
@@ -43,9 +47,14 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
         t.intervals.len(),
         t.size_bytes()
     ));
-    out.push_str(&format!("pub static {name}: UniformCubicTable<{P}> = UniformCubicTable {{\n"));
+    out.push_str(&format!(
+        "pub static {name}: UniformCubicTable<{P}> = UniformCubicTable {{\n"
+    ));
     out.push_str(&format!("    start: {},\n", format_f32(t.knots.start)));
-    out.push_str(&format!("    inverse_step: {},\n", format_f32(t.knots.inverse_step)));
+    out.push_str(&format!(
+        "    inverse_step: {},\n",
+        format_f32(t.knots.inverse_step)
+    ));
     out.push_str("    intervals: &[\n");
     for (i, block) in t.intervals.iter().enumerate() {
         out.push_str(&format!("        // interval {i}\n        [\n"));
@@ -65,16 +74,24 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
 
 fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima) {
     out.push_str(&format!("/// {doc}\n"));
-    out.push_str(&format!("pub const {name}: SaturationAccuracy = SaturationAccuracy {{\n"));
+    out.push_str(&format!(
+        "pub const {name}: SaturationAccuracy = SaturationAccuracy {{\n"
+    ));
     for (field, value) in z.fields() {
         let bound = bound_from_measured(value) as f32;
-        out.push_str(&format!("    {field}: {}, // measured maximum {value:.3e}\n", format_f32(bound)));
+        out.push_str(&format!(
+            "    {field}: {}, // measured maximum {value:.3e}\n",
+            format_f32(bound)
+        ));
     }
     out.push_str("};\n\n");
 }
 
 fn constant(out: &mut String, name: &str, doc: &str, v: f32) {
-    out.push_str(&format!("/// {doc}\npub const {name}: f32 = {};\n\n", format_f32(v)));
+    out.push_str(&format!(
+        "/// {doc}\npub const {name}: f32 = {};\n\n",
+        format_f32(v)
+    ));
 }
 
 /// The complete source of `kernel/src/tables.rs`.
@@ -94,15 +111,21 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
          //! tables give T (K) from ln p below p_sat(623.15 K) ([`TEMPERATURE_LOW`])\n\
          //! and τ from σ = √(pc − p) (√Pa) above it ([`TEMPERATURE_HIGH`]).\n",
     );
-    body.push_str(&format!("//!\n//! Coefficient flash: {} bytes in total.\n", g.size_bytes()));
+    body.push_str(&format!(
+        "//!\n//! Coefficient flash: {} bytes in total.\n",
+        g.size_bytes()
+    ));
     body.push_str(
         "//!\n\
          //! The accuracy constants are the generator's own measurement of these\n\
          //! tables along the kernel's paths (from temperature and from pressure) on a\n\
-         //! grid the configured number of times finer than the knots, ×1.25 and\n\
-         //! rounded up to two digits; `host-tests` checks the kernel against them.\n\n",
+         //! grid the configured number of times finer than the knots, ×2 (margin for\n\
+         //! points between grid points), rounded up to two digits; `host-tests`\n\
+         //! checks the kernel against them on a denser grid plus random points.\n\n",
     );
-    body.push_str("use crate::accuracy::SaturationAccuracy;\nuse crate::spline::UniformCubicTable;\n\n");
+    body.push_str(
+        "use crate::accuracy::SaturationAccuracy;\nuse crate::spline::UniformCubicTable;\n\n",
+    );
     constant(
         &mut body,
         "CRITICAL_TEMPERATURE_K",
@@ -127,12 +150,42 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
         "p_sat(623.15 K) as f32, Pa: pressures below it use the low temperature table.",
         l.boundary_pressure_pa,
     );
-    constant(&mut body, "TEMPERATURE_MIN_K", "Lowest accepted saturation temperature, K.", l.temperature_min_k);
-    constant(&mut body, "TEMPERATURE_MAX_K", "Highest accepted saturation temperature, K.", l.temperature_max_k);
-    constant(&mut body, "PRESSURE_MIN_PA", "Lowest accepted saturation pressure, Pa.", l.pressure_min_pa);
-    constant(&mut body, "PRESSURE_MAX_PA", "Highest accepted saturation pressure, Pa.", l.pressure_max_pa);
-    table(&mut body, "STATE_LOW", "Saturated state below 623.15 K, indexed on T (K).", &g.state_low);
-    table(&mut body, "STATE_HIGH", "Saturated state from 623.15 K, indexed on τ = √(Tc − T) (√K).", &g.state_high);
+    constant(
+        &mut body,
+        "TEMPERATURE_MIN_K",
+        "Lowest accepted saturation temperature, K.",
+        l.temperature_min_k,
+    );
+    constant(
+        &mut body,
+        "TEMPERATURE_MAX_K",
+        "Highest accepted saturation temperature, K.",
+        l.temperature_max_k,
+    );
+    constant(
+        &mut body,
+        "PRESSURE_MIN_PA",
+        "Lowest accepted saturation pressure, Pa.",
+        l.pressure_min_pa,
+    );
+    constant(
+        &mut body,
+        "PRESSURE_MAX_PA",
+        "Highest accepted saturation pressure, Pa.",
+        l.pressure_max_pa,
+    );
+    table(
+        &mut body,
+        "STATE_LOW",
+        "Saturated state below 623.15 K, indexed on T (K).",
+        &g.state_low,
+    );
+    table(
+        &mut body,
+        "STATE_HIGH",
+        "Saturated state from 623.15 K, indexed on τ = √(Tc − T) (√K).",
+        &g.state_high,
+    );
     table(
         &mut body,
         "TEMPERATURE_LOW",
@@ -165,7 +218,10 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     out.push_str("// Do not edit by hand. Regenerate with:\n");
     out.push_str(&format!("//   {REGENERATE_COMMAND}\n"));
     out.push_str(&format!("// Settings: {}\n", g.config.describe()));
-    out.push_str(&format!("{CHECKSUM_PREFIX}{:08x}\n", checksum(body.as_bytes())));
+    out.push_str(&format!(
+        "{CHECKSUM_PREFIX}{:08x}\n",
+        checksum(body.as_bytes())
+    ));
     out.push_str(&body);
     out
 }

@@ -200,7 +200,12 @@ pub fn evaluate_f32(knots: &UniformKnots, coefficients: &[[f32; 4]], x: f32) -> 
 /// Sample positions for fitting an interval-based spline: `per_interval`
 /// points strictly inside each interval, plus every knot, restricted to
 /// `[data_lo, data_hi]` (the part of the range where the source is trusted).
-pub fn sample_positions(knots: &UniformKnots, per_interval: usize, data_lo: f64, data_hi: f64) -> Vec<f64> {
+pub fn sample_positions(
+    knots: &UniformKnots,
+    per_interval: usize,
+    data_lo: f64,
+    data_hi: f64,
+) -> Vec<f64> {
     let mut xs = Vec::new();
     for i in 0..knots.intervals {
         let a = knots.knot(i);

@@ -50,7 +50,8 @@ pub fn state_at_temperature(g: &Generated, t_k: f32) -> KernelState {
     let v = if t_k < l.boundary_temperature_k {
         g.state_low.evaluate(t_k)
     } else {
-        g.state_high.evaluate(libm::sqrtf(l.critical_temperature_k - t_k))
+        g.state_high
+            .evaluate(libm::sqrtf(l.critical_temperature_k - t_k))
     };
     finish(t_k, libm::expf(v[0]), &v)
 }
@@ -62,9 +63,15 @@ pub fn state_at_pressure(g: &Generated, p_pa: f32) -> KernelState {
         let [t] = g.temperature_low.evaluate(libm::logf(p_pa));
         finish(t, p_pa, &g.state_low.evaluate(t))
     } else {
-        let [tau] = g.temperature_high.evaluate(libm::sqrtf(l.critical_pressure_pa - p_pa));
+        let [tau] = g
+            .temperature_high
+            .evaluate(libm::sqrtf(l.critical_pressure_pa - p_pa));
         let tau = tau.max(0.0);
-        finish(l.critical_temperature_k - tau * tau, p_pa, &g.state_high.evaluate(tau))
+        finish(
+            l.critical_temperature_k - tau * tau,
+            p_pa,
+            &g.state_high.evaluate(tau),
+        )
     }
 }
 
@@ -117,18 +124,34 @@ impl ZoneMaxima {
     fn update(&mut self, k: &KernelState, t_ref: f64, r: &super::SaturatedSample) {
         let rel = |a: f32, b: f64| ((f64::from(a) - b) / b).abs();
         let abs = |a: f32, b: f64| (f64::from(a) - b).abs();
-        let m = |slot: &mut f64, v: f64| *slot = slot.max(if v.is_nan() { f64::INFINITY } else { v });
+        let m =
+            |slot: &mut f64, v: f64| *slot = slot.max(if v.is_nan() { f64::INFINITY } else { v });
         let q = &k.properties;
         m(&mut self.temperature_k, abs(k.temperature_k, t_ref));
-        m(&mut self.pressure_relative, rel(k.pressure_pa, r.pressure_pa));
-        m(&mut self.liquid_density_relative, rel(q[0], r.liquid.density_kg_m3));
-        m(&mut self.vapour_density_relative, rel(q[1], r.vapour.density_kg_m3));
+        m(
+            &mut self.pressure_relative,
+            rel(k.pressure_pa, r.pressure_pa),
+        );
+        m(
+            &mut self.liquid_density_relative,
+            rel(q[0], r.liquid.density_kg_m3),
+        );
+        m(
+            &mut self.vapour_density_relative,
+            rel(q[1], r.vapour.density_kg_m3),
+        );
         let dh_l = abs(q[2], r.liquid.enthalpy_j_kg);
         let dh_v = abs(q[3], r.vapour.enthalpy_j_kg);
         m(&mut self.liquid_enthalpy_j_kg, dh_l);
         m(&mut self.vapour_enthalpy_j_kg, dh_v);
-        m(&mut self.liquid_entropy_j_kgk, abs(q[4], r.liquid.entropy_j_kgk));
-        m(&mut self.vapour_entropy_j_kgk, abs(q[5], r.vapour.entropy_j_kgk));
+        m(
+            &mut self.liquid_entropy_j_kgk,
+            abs(q[4], r.liquid.entropy_j_kgk),
+        );
+        m(
+            &mut self.vapour_entropy_j_kgk,
+            abs(q[5], r.vapour.entropy_j_kgk),
+        );
         m(&mut self.liquid_cp_relative, rel(q[6], r.liquid.cp_j_kgk));
         m(&mut self.vapour_cp_relative, rel(q[7], r.vapour.cp_j_kgk));
         m(
@@ -174,7 +197,10 @@ pub const NEAR_CRITICAL_START_K: f64 = 647.096 - 1.0;
 ///
 /// # Errors
 /// [`GenerateError::Source`] when the source fails at a grid point.
-pub fn measure<S: SaturationSource + ?Sized>(g: &Generated, source: &S) -> Result<Measured, GenerateError> {
+pub fn measure<S: SaturationSource + ?Sized>(
+    g: &Generated,
+    source: &S,
+) -> Result<Measured, GenerateError> {
     let c = &g.config;
     let l = &g.limits;
     let m = c.measurement_points_per_interval;
@@ -187,13 +213,20 @@ pub fn measure<S: SaturationSource + ?Sized>(g: &Generated, source: &S) -> Resul
         let r = source
             .saturated_sample(t_ref)
             .map_err(|message| GenerateError::Source { at: t_ref, message })?;
-        let zone = if t_ref < NEAR_CRITICAL_START_K { &mut out.below_near_critical } else { &mut out.near_critical };
+        let zone = if t_ref < NEAR_CRITICAL_START_K {
+            &mut out.below_near_critical
+        } else {
+            &mut out.near_critical
+        };
         zone.update(k, t_ref, &r);
         Ok(())
     };
     // Temperature inputs: uniform in T below 623.15 K, uniform in τ above.
     let n = g.state_low.intervals.len() * m;
-    let (lo, hi) = (f64::from(l.temperature_min_k), f64::from(l.boundary_temperature_k).min(t_top));
+    let (lo, hi) = (
+        f64::from(l.temperature_min_k),
+        f64::from(l.boundary_temperature_k).min(t_top),
+    );
     for k in 0..=n {
         let t = (lo + (hi - lo) * k as f64 / n as f64) as f32;
         if t >= l.temperature_min_k && t <= l.temperature_max_k {
@@ -202,7 +235,10 @@ pub fn measure<S: SaturationSource + ?Sized>(g: &Generated, source: &S) -> Resul
     }
     let n = g.state_high.intervals.len() * m;
     let tc32 = f64::from(l.critical_temperature_k);
-    let (tau_lo, tau_hi) = ((tc32 - t_top).sqrt(), (tc32 - f64::from(l.boundary_temperature_k)).max(0.0).sqrt());
+    let (tau_lo, tau_hi) = (
+        (tc32 - t_top).sqrt(),
+        (tc32 - f64::from(l.boundary_temperature_k)).max(0.0).sqrt(),
+    );
     for k in 0..=n {
         let tau = tau_lo + (tau_hi - tau_lo) * k as f64 / n as f64;
         let t = (tc32 - tau * tau) as f32;
@@ -212,33 +248,45 @@ pub fn measure<S: SaturationSource + ?Sized>(g: &Generated, source: &S) -> Resul
     }
     // Pressure inputs: uniform in ln p below p_sat(623.15 K), in σ above.
     let n = g.temperature_low.intervals.len() * m;
-    let (lo, hi) = (f64::from(l.pressure_min_pa).ln(), f64::from(l.boundary_pressure_pa).ln());
+    let (lo, hi) = (
+        f64::from(l.pressure_min_pa).ln(),
+        f64::from(l.boundary_pressure_pa).ln(),
+    );
     for k in 0..=n {
         let p = (lo + (hi - lo) * k as f64 / n as f64).exp() as f32;
         if p >= l.pressure_min_pa && p <= l.pressure_max_pa {
-            record(&state_at_pressure(g, p), source.saturation_temperature_k(f64::from(p)))?;
+            record(
+                &state_at_pressure(g, p),
+                source.saturation_temperature_k(f64::from(p)),
+            )?;
         }
     }
     let n = g.temperature_high.intervals.len() * m;
     let pc32 = f64::from(l.critical_pressure_pa);
-    let (s_lo, s_hi) = (0.0, (pc32 - f64::from(l.boundary_pressure_pa)).max(0.0).sqrt());
+    let (s_lo, s_hi) = (
+        0.0,
+        (pc32 - f64::from(l.boundary_pressure_pa)).max(0.0).sqrt(),
+    );
     for k in 0..=n {
         let s = s_lo + (s_hi - s_lo) * k as f64 / n as f64;
         let p = (pc32 - s * s) as f32;
         if p >= l.pressure_min_pa && p <= l.pressure_max_pa {
-            record(&state_at_pressure(g, p), source.saturation_temperature_k(f64::from(p)))?;
+            record(
+                &state_at_pressure(g, p),
+                source.saturation_temperature_k(f64::from(p)),
+            )?;
         }
     }
     Ok(out)
 }
 
-/// A published bound from a measured maximum: ×1.25 margin for points
+/// A published bound from a measured maximum: ×2 margin for points
 /// between grid points, rounded up to two significant digits.
 pub fn bound_from_measured(x: f64) -> f64 {
     if x <= 0.0 || !x.is_finite() {
         return x;
     }
-    let y = x * 1.25;
+    let y = x * 2.0;
     let e = y.log10().floor() - 1.0;
     let scale = 10f64.powf(e);
     (y / scale).ceil() * scale

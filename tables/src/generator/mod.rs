@@ -31,6 +31,7 @@
 
 pub mod emit;
 pub mod fit;
+pub mod iapws97;
 pub mod measure;
 pub mod source;
 
@@ -109,6 +110,49 @@ impl Config {
             self.measurement_points_per_interval,
             self.critical_margin_k
         )
+    }
+}
+
+impl Config {
+    /// Reads the settings line written by [`Config::describe`] (the
+    /// `// Settings:` header line of a generated file, without the prefix);
+    /// settings not named keep their default.
+    ///
+    /// # Errors
+    /// [`GenerateError::Config`] for an unknown key or a value that does not
+    /// parse.
+    pub fn parse(settings: &str) -> Result<Self, GenerateError> {
+        let mut c = Self::default();
+        for item in settings.split_whitespace() {
+            let (key, value) = item
+                .split_once('=')
+                .ok_or_else(|| GenerateError::Config(format!("expected key=value, got {item}")))?;
+            c.set(key, value)?;
+        }
+        Ok(c)
+    }
+
+    /// Sets one setting by its name in [`Config::describe`].
+    ///
+    /// # Errors
+    /// [`GenerateError::Config`] for an unknown key or a bad value.
+    pub fn set(&mut self, key: &str, value: &str) -> Result<(), GenerateError> {
+        let bad = || GenerateError::Config(format!("bad value {value} for {key}"));
+        let float = || value.parse::<f64>().map_err(|_| bad());
+        let count = || value.parse::<usize>().map_err(|_| bad());
+        match key {
+            "temperature_min_k" => self.temperature_min_k = float()?,
+            "temperature_max_k" => self.temperature_max_k = float()?,
+            "state_intervals_low" => self.state_intervals_low = count()?,
+            "state_intervals_high" => self.state_intervals_high = count()?,
+            "temperature_intervals_low" => self.temperature_intervals_low = count()?,
+            "temperature_intervals_high" => self.temperature_intervals_high = count()?,
+            "samples_per_interval" => self.samples_per_interval = count()?,
+            "measurement_points_per_interval" => self.measurement_points_per_interval = count()?,
+            "critical_margin_k" => self.critical_margin_k = float()?,
+            _ => return Err(GenerateError::Config(format!("unknown setting {key}"))),
+        }
+        Ok(())
     }
 }
 
@@ -268,7 +312,10 @@ fn sample_state<S: SaturationSource + ?Sized>(
     if v.iter().all(|x| x.is_finite()) {
         Ok(v)
     } else {
-        Err(GenerateError::Source { at: t_k, message: "non-finite property".into() })
+        Err(GenerateError::Source {
+            at: t_k,
+            message: "non-finite property".into(),
+        })
     }
 }
 
@@ -277,18 +324,33 @@ fn sample_state<S: SaturationSource + ?Sized>(
 /// # Errors
 /// [`GenerateError`] when the configuration is inconsistent, the source fails
 /// at a sampling point or a fit is singular.
-pub fn generate<S: SaturationSource + ?Sized>(config: &Config, source: &S) -> Result<Generated, GenerateError> {
+pub fn generate<S: SaturationSource + ?Sized>(
+    config: &Config,
+    source: &S,
+) -> Result<Generated, GenerateError> {
     let tc = 647.096f64;
     let pc = 22.064e6f64;
     let tb = REGION3_BOUNDARY_TEMPERATURE_K;
     let c = config;
-    if !(c.temperature_min_k >= 273.16 && c.temperature_min_k < c.temperature_max_k && c.temperature_max_k <= tc) {
-        return Err(GenerateError::Config("need 273.16 <= temperature_min_k < temperature_max_k <= 647.096".into()));
-    }
-    if [c.state_intervals_low, c.state_intervals_high, c.temperature_intervals_low, c.temperature_intervals_high]
-        .contains(&0)
+    if !(c.temperature_min_k >= 273.16
+        && c.temperature_min_k < c.temperature_max_k
+        && c.temperature_max_k <= tc)
     {
-        return Err(GenerateError::Config("every interval count must be at least 1".into()));
+        return Err(GenerateError::Config(
+            "need 273.16 <= temperature_min_k < temperature_max_k <= 647.096".into(),
+        ));
+    }
+    if [
+        c.state_intervals_low,
+        c.state_intervals_high,
+        c.temperature_intervals_low,
+        c.temperature_intervals_high,
+    ]
+    .contains(&0)
+    {
+        return Err(GenerateError::Config(
+            "every interval count must be at least 1".into(),
+        ));
     }
     if c.samples_per_interval < 4 || c.measurement_points_per_interval < 50 {
         return Err(GenerateError::Config(
@@ -319,58 +381,131 @@ pub fn generate<S: SaturationSource + ?Sized>(config: &Config, source: &S) -> Re
     // Trusted data stops short of the critical point by `critical_margin_k`.
     let t_data_max = c.temperature_max_k.min(tc - c.critical_margin_k);
 
-    // State table, low: T from the envelope's bottom to 623.15 K.
-    let (low_lo, low_hi) = if c.temperature_min_k < tb {
-        (c.temperature_min_k, c.temperature_max_k.min(tb))
-    } else {
-        (273.16, tb) // outside the envelope: one interval, never reached
+    // A segment outside the envelope is never reached (the range check
+    // rejects its inputs); it is written as one constant interval holding
+    // the values at 623.15 K, so no data beyond the envelope is needed.
+    let at_boundary = sample_state(source, tb)?;
+    let constant = |knots: UniformKnots, v: &[f64]| -> Table<STATE_QUANTITIES> {
+        let mut block = [[0.0f32; 4]; STATE_QUANTITIES];
+        for (b, &x) in block.iter_mut().zip(v) {
+            b[0] = x as f32;
+        }
+        Table {
+            knots,
+            intervals: vec![block],
+        }
     };
-    let knots = UniformKnots::covering(low_lo, low_hi, c.state_intervals_low)?;
-    let xs = fit::sample_positions(&knots, c.samples_per_interval, low_lo, low_hi.min(t_data_max));
-    let values = xs.iter().map(|&t| sample_state(source, t)).collect::<Result<Vec<_>, _>>()?;
-    let state_low = fit_table(knots, &xs, &values)?;
+    let low_in_envelope = c.temperature_min_k < tb;
+    let high_in_envelope = c.temperature_max_k > tb;
 
-    // State table, high: τ from 0 (critical point) to τ(623.15 K).
-    let (high_t_lo, high_t_hi) = if c.temperature_max_k > tb {
-        (c.temperature_min_k.max(tb), c.temperature_max_k)
+    // State table, low: T from the envelope's bottom to 623.15 K.
+    let low_lo = c.temperature_min_k.min(tb - 1.0);
+    let low_hi = c.temperature_max_k.min(tb);
+    let state_low = if low_in_envelope {
+        let knots = UniformKnots::covering(low_lo, low_hi, c.state_intervals_low)?;
+        let xs = fit::sample_positions(
+            &knots,
+            c.samples_per_interval,
+            low_lo,
+            low_hi.min(t_data_max),
+        );
+        let values = xs
+            .iter()
+            .map(|&t| sample_state(source, t))
+            .collect::<Result<Vec<_>, _>>()?;
+        fit_table(knots, &xs, &values)?
     } else {
-        (tb, tc)
+        constant(UniformKnots::covering(tb - 1.0, tb, 1)?, &at_boundary)
     };
-    let knots = UniformKnots::covering(tau_of(high_t_hi), tau_of(high_t_lo), c.state_intervals_high)?;
-    let xs = fit::sample_positions(
-        &knots,
-        c.samples_per_interval,
-        tau_of(high_t_hi.min(t_data_max)),
-        tau_of(high_t_lo),
-    );
-    let values = xs
-        .iter()
-        .map(|&tau| sample_state(source, f64::from(tc32) - tau * tau))
-        .collect::<Result<Vec<_>, _>>()?;
-    let state_high = fit_table(knots, &xs, &values)?;
+
+    // State table, high: τ from the top of the envelope (τ = 0 at the
+    // critical point) to τ(623.15 K).
+    let high_t_lo = c.temperature_min_k.max(tb);
+    let high_t_hi = c.temperature_max_k.max(tb + 1.0);
+    let high_data_top = high_t_hi.min(tc - c.critical_margin_k);
+    let state_high = if high_in_envelope {
+        let knots =
+            UniformKnots::covering(tau_of(high_t_hi), tau_of(high_t_lo), c.state_intervals_high)?;
+        let xs = fit::sample_positions(
+            &knots,
+            c.samples_per_interval,
+            tau_of(high_data_top),
+            tau_of(high_t_lo),
+        );
+        let values = xs
+            .iter()
+            .map(|&tau| sample_state(source, f64::from(tc32) - tau * tau))
+            .collect::<Result<Vec<_>, _>>()?;
+        fit_table(knots, &xs, &values)?
+    } else {
+        constant(
+            UniformKnots::covering(tau_of(tb + 1.0), tau_of(tb), 1)?,
+            &at_boundary,
+        )
+    };
 
     // Saturation temperature, low: ln p → T.
-    let p_lo = source.saturation_pressure_pa(low_lo);
-    let p_hi = source.saturation_pressure_pa(low_hi);
-    let knots = UniformKnots::covering(p_lo.ln(), p_hi.ln(), c.temperature_intervals_low)?;
-    let xs = fit::sample_positions(&knots, c.samples_per_interval, p_lo.ln(), p_hi.ln());
-    let values: Vec<[f64; 1]> = xs.iter().map(|&lnp| [source.saturation_temperature_k(lnp.exp())]).collect();
-    let temperature_low = fit_table(knots, &xs, &values)?;
+    let temperature_low = if low_in_envelope {
+        let p_lo = source.saturation_pressure_pa(low_lo);
+        let p_hi = source.saturation_pressure_pa(low_hi);
+        let knots = UniformKnots::covering(p_lo.ln(), p_hi.ln(), c.temperature_intervals_low)?;
+        let xs = fit::sample_positions(&knots, c.samples_per_interval, p_lo.ln(), p_hi.ln());
+        let values: Vec<[f64; 1]> = xs
+            .iter()
+            .map(|&lnp| [source.saturation_temperature_k(lnp.exp())])
+            .collect();
+        fit_table(knots, &xs, &values)?
+    } else {
+        let knots = UniformKnots::covering(pb.ln() - 0.1, pb.ln(), 1)?;
+        Table {
+            knots,
+            intervals: vec![[[tb as f32, 0.0, 0.0, 0.0]]],
+        }
+    };
 
     // Saturation temperature, high: σ = √(pc − p) → τ.
     let sigma_of = |p: f64| (f64::from(pc32) - p).max(0.0).sqrt();
-    let p_hi = if high_t_hi >= tc { pc } else { source.saturation_pressure_pa(high_t_hi) };
-    let p_lo = source.saturation_pressure_pa(high_t_lo);
-    let p_data_hi = source.saturation_pressure_pa(high_t_hi.min(t_data_max));
-    let knots = UniformKnots::covering(sigma_of(p_hi), sigma_of(p_lo), c.temperature_intervals_high)?;
-    let xs = fit::sample_positions(&knots, c.samples_per_interval, sigma_of(p_data_hi), sigma_of(p_lo));
-    let values: Vec<[f64; 1]> = xs
-        .iter()
-        .map(|&s| [tau_of(source.saturation_temperature_k(f64::from(pc32) - s * s))])
-        .collect();
-    let temperature_high = fit_table(knots, &xs, &values)?;
+    let temperature_high = if high_in_envelope {
+        let p_hi = if high_t_hi >= tc {
+            pc
+        } else {
+            source.saturation_pressure_pa(high_t_hi)
+        };
+        let p_lo = source.saturation_pressure_pa(high_t_lo);
+        let p_data_hi = source.saturation_pressure_pa(high_data_top);
+        let knots =
+            UniformKnots::covering(sigma_of(p_hi), sigma_of(p_lo), c.temperature_intervals_high)?;
+        let xs = fit::sample_positions(
+            &knots,
+            c.samples_per_interval,
+            sigma_of(p_data_hi),
+            sigma_of(p_lo),
+        );
+        let values: Vec<[f64; 1]> = xs
+            .iter()
+            .map(|&s| {
+                [tau_of(
+                    source.saturation_temperature_k(f64::from(pc32) - s * s),
+                )]
+            })
+            .collect();
+        fit_table(knots, &xs, &values)?
+    } else {
+        let knots = UniformKnots::covering(sigma_of(pb) - 1.0, sigma_of(pb), 1)?;
+        Table {
+            knots,
+            intervals: vec![[[tau_of(tb) as f32, 0.0, 0.0, 0.0]]],
+        }
+    };
 
-    Ok(Generated { config: c.clone(), limits, state_low, state_high, temperature_low, temperature_high })
+    Ok(Generated {
+        config: c.clone(),
+        limits,
+        state_low,
+        state_high,
+        temperature_low,
+        temperature_high,
+    })
 }
 
 /// Smallest f32 not below `x`.
