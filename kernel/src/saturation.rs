@@ -32,7 +32,7 @@
 //! there and reproduce the jump.
 
 use crate::error::SaturationError;
-use crate::spline::cubic;
+use crate::spline::{at_least, cubic};
 use crate::tables::saturation as table;
 use crate::units::{AbsolutePressure, Temperature};
 
@@ -181,7 +181,7 @@ fn line_at_pressure(p_pa: f32) -> Result<(Segment, f32, f32), SaturationError> {
         let (c, t) = table::TEMPERATURE_HIGH
             .locate(sigma)
             .ok_or(SaturationError::EmptyTable)?;
-        let tau = cubic(&c[0], t).max(0.0);
+        let tau = at_least(cubic(&c[0], t), 0.0);
         Ok((
             Segment::High,
             tau,
@@ -200,7 +200,7 @@ fn line_at_temperature(t_k: f32) -> Result<(Segment, f32), SaturationError> {
         // t_k ≤ TEMPERATURE_MAX_K ≤ CRITICAL_TEMPERATURE_K, so the root is real.
         Ok((
             Segment::High,
-            libm::sqrtf((table::CRITICAL_TEMPERATURE_K - t_k).max(0.0)),
+            libm::sqrtf(at_least(table::CRITICAL_TEMPERATURE_K - t_k, 0.0)),
         ))
     }
 }
@@ -271,12 +271,12 @@ pub(crate) fn vapour_density(block: &Block, t: f32, pressure_pa: f32) -> f32 {
 
 #[inline]
 fn liquid_cp(block: &Block, t: f32) -> f32 {
-    1.0 / cubic(&block[LIQUID_INVERSE_CP], t).max(INVERSE_CP_FLOOR)
+    1.0 / at_least(cubic(&block[LIQUID_INVERSE_CP], t), INVERSE_CP_FLOOR)
 }
 
 #[inline]
 fn vapour_cp(block: &Block, t: f32) -> f32 {
-    1.0 / cubic(&block[VAPOUR_INVERSE_CP], t).max(INVERSE_CP_FLOOR)
+    1.0 / at_least(cubic(&block[VAPOUR_INVERSE_CP], t), INVERSE_CP_FLOOR)
 }
 
 fn state_from_interval(

@@ -33,7 +33,7 @@ impl<const P: usize> UniformCubicTable<P> {
     /// which the generator never writes.
     #[inline]
     pub fn locate(&self, x: f32) -> Option<(&'static [[f32; 4]; P], f32)> {
-        let u = ((x - self.start) * self.inverse_step).max(0.0);
+        let u = at_least((x - self.start) * self.inverse_step, 0.0);
         // `as usize` saturates (and maps NaN to 0), so this cannot misbehave.
         let i = (u as usize).min(self.intervals.len().saturating_sub(1));
         let t = u - i as f32;
@@ -45,4 +45,15 @@ impl<const P: usize> UniformCubicTable<P> {
 #[inline]
 pub fn cubic(c: &[f32; 4], t: f32) -> f32 {
     c[0] + t * (c[1] + t * (c[2] + t * c[3]))
+}
+
+/// `x`, or `floor` if x is smaller (or NaN). Written out because `f32::max`
+/// becomes a library call (`fmaxf`) on Cortex-M; this is one compare.
+#[inline]
+pub(crate) fn at_least(x: f32, floor: f32) -> f32 {
+    if x > floor {
+        x
+    } else {
+        floor
+    }
 }
