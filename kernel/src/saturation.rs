@@ -25,7 +25,7 @@
 //! The last 0.01 K below the critical point is reached by extending the
 //! fitted polynomials (the formulation's own iteration is not trusted that
 //! close); no accuracy is stated there, and the heat capacities, which
-//! diverge at the critical point, are capped at 1e7 J/(kg·K).
+//! diverge at the critical point, are capped at 1e10 J/(kg·K).
 //!
 //! At 623.15 K IF97 hands over from Regions 1 and 2 to Region 3, and its
 //! saturated properties jump by a few 1e-5 relative; the tables are split
@@ -40,9 +40,9 @@ pub use crate::tables::saturation::{
     PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K, TEMPERATURE_MIN_K,
 };
 
-/// Smallest tabulated 1/cp used, kg·K/J: caps cp at 1e7 J/(kg·K) in the
+/// Smallest tabulated 1/cp used, kg·K/J: caps cp at 1e10 J/(kg·K) in the
 /// extension of the tables to the critical point, where cp diverges.
-const INVERSE_CP_FLOOR: f32 = 1e-7;
+const INVERSE_CP_FLOOR: f32 = 1e-10;
 
 // Order of the quantities in a state-table interval (the generator's layout).
 const LN_PRESSURE: usize = 0;

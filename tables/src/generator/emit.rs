@@ -141,13 +141,13 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     constant(
         &mut body,
         "BOUNDARY_TEMPERATURE_K",
-        "623.15 K as f32: temperatures below it use the low state table.",
+        "First f32 above 623.15 K: temperatures below it use the low state table (the formulation takes T ≤ 623.15 K from Regions 1 and 2).",
         l.boundary_temperature_k,
     );
     constant(
         &mut body,
         "BOUNDARY_PRESSURE_PA",
-        "p_sat(623.15 K) as f32, Pa: pressures below it use the low temperature table.",
+        "First f32 above p_sat(623.15 K), Pa: pressures below it use the low tables.",
         l.boundary_pressure_pa,
     );
     constant(

@@ -12,9 +12,9 @@ use std::vec::Vec;
 use super::{GenerateError, Generated, SaturationSource};
 
 /// Smallest 1/cp the kernel accepts before dividing, kg·K/J: caps the heat
-/// capacities at 1e7 J/(kg·K) where the fit is extended to the critical
+/// capacities at 1e10 J/(kg·K) where the fit is extended to the critical
 /// point (cp diverges there).
-pub const INVERSE_CP_FLOOR: f32 = 1e-7;
+pub const INVERSE_CP_FLOOR: f32 = 1e-10;
 
 /// The saturated state as the kernel computes it, f32.
 #[derive(Debug, Clone, Copy, PartialEq)]

@@ -229,9 +229,9 @@ pub struct Limits {
     pub critical_temperature_k: f32,
     /// Critical pressure as f32, Pa (defines σ).
     pub critical_pressure_pa: f32,
-    /// 623.15 K as f32: below it the low state table is used.
+    /// First f32 above 623.15 K: below it the low state table is used.
     pub boundary_temperature_k: f32,
-    /// p_sat(623.15 K) as f32, Pa: below it the low temperature table is used.
+    /// First f32 above p_sat(623.15 K), Pa: below it the low temperature table is used.
     pub boundary_pressure_pa: f32,
     /// Lowest accepted temperature, K.
     pub temperature_min_k: f32,
@@ -367,8 +367,11 @@ pub fn generate<S: SaturationSource + ?Sized>(
     let limits = Limits {
         critical_temperature_k: tc32,
         critical_pressure_pa: pc32,
-        boundary_temperature_k: tb as f32,
-        boundary_pressure_pa: pb as f32,
+        // The formulation takes T ≤ 623.15 K (and p ≤ p_sat(623.15 K)) from
+        // Regions 1 and 2; the kernel takes the low tables below these
+        // constants, so they are the first f32 strictly above the boundary.
+        boundary_temperature_k: round_up_strictly_f32(tb),
+        boundary_pressure_pa: round_up_strictly_f32(pb),
         temperature_min_k: round_up_f32(c.temperature_min_k),
         temperature_max_k: c.temperature_max_k as f32,
         pressure_min_pa: round_up_f32(source.saturation_pressure_pa(c.temperature_min_k)),
@@ -512,6 +515,16 @@ pub fn generate<S: SaturationSource + ?Sized>(
 fn round_up_f32(x: f64) -> f32 {
     let r = x as f32;
     if f64::from(r) < x {
+        f32::from_bits(r.to_bits() + 1)
+    } else {
+        r
+    }
+}
+
+/// Smallest f32 strictly above `x` (x > 0).
+fn round_up_strictly_f32(x: f64) -> f32 {
+    let r = round_up_f32(x);
+    if f64::from(r) == x {
         f32::from_bits(r.to_bits() + 1)
     } else {
         r
