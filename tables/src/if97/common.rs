@@ -100,20 +100,35 @@ impl fmt::Display for FormulationError {
         match *self {
             Self::NotFinite => write!(f, "input is NaN or infinite"),
             Self::PressureOutOfRange { pressure_pa } => {
-                write!(f, "pressure {pressure_pa} Pa is outside the range of this equation")
+                write!(
+                    f,
+                    "pressure {pressure_pa} Pa is outside the range of this equation"
+                )
             }
             Self::TemperatureOutOfRange { temperature_k } => {
-                write!(f, "temperature {temperature_k} K is outside the range of this equation")
+                write!(
+                    f,
+                    "temperature {temperature_k} K is outside the range of this equation"
+                )
             }
             Self::DensityOutOfRange { density_kg_m3 } => {
-                write!(f, "density {density_kg_m3} kg/m3 is outside the range of this equation")
+                write!(
+                    f,
+                    "density {density_kg_m3} kg/m3 is outside the range of this equation"
+                )
             }
-            Self::OutsideFormulation { pressure_pa, temperature_k } => write!(
+            Self::OutsideFormulation {
+                pressure_pa,
+                temperature_k,
+            } => write!(
                 f,
                 "point p = {pressure_pa} Pa, T = {temperature_k} K lies outside IAPWS-IF97"
             ),
             Self::PropertyOutOfRange => {
-                write!(f, "enthalpy or entropy is outside the range reachable at this pressure")
+                write!(
+                    f,
+                    "enthalpy or entropy is outside the range reachable at this pressure"
+                )
             }
             Self::NoConvergence => write!(f, "iteration did not converge"),
         }

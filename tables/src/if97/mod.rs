@@ -9,3 +9,6 @@ mod common;
 pub use common::*;
 
 pub mod region4;
+
+// region 3, saturation line, viscosity, inversions
+pub mod region3;
