@@ -12,3 +12,4 @@ pub mod region4;
 
 // region 3, saturation line, viscosity, inversions
 pub mod region3;
+pub mod viscosity;
