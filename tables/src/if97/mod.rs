@@ -11,5 +11,6 @@ pub use common::*;
 pub mod region4;
 
 // region 3, saturation line, viscosity, inversions
+pub mod backward;
 pub mod region3;
 pub mod viscosity;
