@@ -382,7 +382,7 @@ fn bisect_slope(f: &impl Fn(f64) -> f64, lo: f64, hi: f64) -> Option<f64> {
 /// monotone increasing in ρ: Newton steps kept inside a shrinking bracket,
 /// falling back to bisection whenever a step leaves it. Converges to a
 /// relative residual of 1e-13 on p (or to an interval of a few ulp).
-fn solve_in_bracket(
+pub(crate) fn solve_in_bracket(
     pressure_pa: f64,
     temperature_k: f64,
     lo: f64,
@@ -433,64 +433,29 @@ fn solve_in_bracket(
 /// Below Tc, if the pressure lies beyond the loop for the chosen branch
 /// (above the vapour spinodal pressure for [`Branch::Vapour`], below the
 /// liquid spinodal pressure for [`Branch::Liquid`]) there is no root on that
-/// branch and `Err(NoConvergence)` is returned; `spinodal_fallback` lets a
-/// caller take the spinodal instead.
+/// branch and the root on the other branch, the only one, is returned. With
+/// the branch chosen by psat(T) this happens only where psat(T) lies outside
+/// the loop of Eq. 28, which the test suite bounds to the last microkelvins
+/// below Tc (where the loop is below 1 Pa high).
 pub(crate) fn density_on_branch(
     pressure_pa: f64,
     temperature_k: f64,
     branch: Branch,
 ) -> Result<f64, FormulationError> {
+    let whole = || solve_in_bracket(pressure_pa, temperature_k, MIN_DENSITY_KG_M3, MAX_DENSITY_KG_M3);
     if temperature_k >= CRITICAL_TEMPERATURE_K {
-        return solve_in_bracket(
-            pressure_pa,
-            temperature_k,
-            MIN_DENSITY_KG_M3,
-            MAX_DENSITY_KG_M3,
-        );
+        return whole();
     }
     match spinodal_densities_kg_m3(temperature_k) {
-        Some((vapour_spinodal, liquid_spinodal)) => match branch {
-            Branch::Liquid => solve_in_bracket(
-                pressure_pa,
-                temperature_k,
-                liquid_spinodal,
-                MAX_DENSITY_KG_M3,
-            ),
-            Branch::Vapour => solve_in_bracket(
-                pressure_pa,
-                temperature_k,
-                MIN_DENSITY_KG_M3,
-                vapour_spinodal,
-            ),
-        },
-        None => solve_in_bracket(
-            pressure_pa,
-            temperature_k,
-            MIN_DENSITY_KG_M3,
-            MAX_DENSITY_KG_M3,
-        ),
-    }
-}
-
-/// Like [`density_on_branch`], but where the branch has no root (only
-/// possible within a few mK of Tc, where the Region 4 saturation pressure
-/// and the loop of Eq. 28 differ by more than the loop's height) returns the
-/// spinodal density of that branch, the state of the branch whose pressure
-/// is closest to the one asked for. The flag says whether the fallback was
-/// taken.
-#[allow(dead_code)] // used by the saturation line, added next
-pub(crate) fn spinodal_fallback(
-    pressure_pa: f64,
-    temperature_k: f64,
-    branch: Branch,
-) -> Result<(f64, bool), FormulationError> {
-    match density_on_branch(pressure_pa, temperature_k, branch) {
-        Ok(rho) => Ok((rho, false)),
-        Err(e) => match (spinodal_densities_kg_m3(temperature_k), branch) {
-            (Some((vapour, _)), Branch::Vapour) => Ok((vapour, true)),
-            (Some((_, liquid)), Branch::Liquid) => Ok((liquid, true)),
-            (None, _) => Err(e),
-        },
+        Some((vapour_spinodal, liquid_spinodal)) => {
+            let liquid = || solve_in_bracket(pressure_pa, temperature_k, liquid_spinodal, MAX_DENSITY_KG_M3);
+            let vapour = || solve_in_bracket(pressure_pa, temperature_k, MIN_DENSITY_KG_M3, vapour_spinodal);
+            match branch {
+                Branch::Liquid => liquid().or_else(|_| vapour()),
+                Branch::Vapour => vapour().or_else(|_| liquid()),
+            }
+        }
+        None => whole(),
     }
 }
 
