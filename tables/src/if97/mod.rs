@@ -10,6 +10,14 @@ pub use common::*;
 
 pub mod region4;
 
+// regions 1, 2, 5, B23 and selection
+pub mod b23;
+mod gibbs;
+pub mod region1;
+pub mod region2;
+pub mod region5;
+pub mod regions;
+
 // region 3, saturation line, viscosity, inversions
 pub mod backward;
 pub mod region3;
