@@ -215,20 +215,22 @@ fn density_round_trip() {
             count += 1;
             // The solver stops at a 1e-13 residual or when its bracket is a
             // few ulp wide; in the latter case the residual is the rounding
-            // noise of p₃ itself, up to about 1e-13, hence 2e-13.
+            // noise of p₃ itself. In compressed liquid near 623 K the terms
+            // of δφ_δ reach ~100 and cancel to ~0.15, so that noise reaches
+            // ~5e-13 relative; hence 1e-12.
             assert!(
-                dev_p <= 2e-13,
+                dev_p <= 1e-12,
                 "T={t} p={p}: rho {got}, p back {p_back}, rel dev {dev_p:e}"
             );
-            // The grid p itself carries the rounding noise of Eq. 28 (about
-            // 1e-13 relative in the liquid, where p is a small difference of
+            // The grid p itself carries the rounding noise of Eq. 28 (up to
+            // 5e-13 relative in the liquid, where p is a small difference of
             // large terms), and the solver stops at a 1e-13 residual; the
             // density error is that over the dimensionless stiffness
             // (ρ/p)(∂p/∂ρ), which falls to 1e-4 near the spinodals. Hence
-            // 3e-13/stiffness with a floor of 1e-12 and a cap of 1e-9.
+            // 1e-12/stiffness with a floor of 1e-12 and a cap of 1e-9.
             let stiffness = rho / p * slope;
             assert!(
-                dev <= (3e-13 / stiffness).clamp(1e-12, 1e-9),
+                dev <= (1e-12 / stiffness).clamp(1e-12, 1e-9),
                 "T={t} p={p}: rho {got}, expected {rho}, rel dev {dev:e}"
             );
         }

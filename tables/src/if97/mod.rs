@@ -21,4 +21,5 @@ pub mod regions;
 // region 3, saturation line, viscosity, inversions
 pub mod backward;
 pub mod region3;
+pub mod saturation;
 pub mod viscosity;
