@@ -115,3 +115,31 @@ pub fn viscosity_pa_s(density_kg_m3: f64, temperature_k: f64) -> Result<f64, For
     }
     Ok(viscosity_pa_s_unchecked(density_kg_m3, temperature_k))
 }
+
+/// Dynamic viscosity at pressure p (Pa) and temperature T (K), Pa·s: the
+/// IF97 density from [`super::pt::properties_pt`] put into
+/// [`viscosity_pa_s`] (R12-08 industrial use).
+///
+/// Range: the IF97 range up to 1173.15 K (273.15 K ≤ T ≤ 1073.15 K for
+/// p ≤ 100 MPa, 1073.15 K < T ≤ 1173.15 K for p ≤ 50 MPa). On the
+/// saturation line the liquid is taken (as in `properties_pt`).
+///
+/// # Errors
+/// Those of [`super::pt::properties_pt`], and
+/// [`FormulationError::TemperatureOutOfRange`] above 1173.15 K.
+///
+/// # Example
+/// ```
+/// use vapora_tables::if97::viscosity::viscosity_pt;
+/// let mu = viscosity_pt(0.101_325e6, 293.15)?; // water at 20 °C
+/// assert!((mu - 1.0016e-3).abs() < 1e-6);
+/// # Ok::<(), vapora_tables::if97::FormulationError>(())
+/// ```
+pub fn viscosity_pt(pressure_pa: f64, temperature_k: f64) -> Result<f64, FormulationError> {
+    require_finite(&[pressure_pa, temperature_k])?;
+    if temperature_k > MAX_TEMPERATURE_K {
+        return Err(FormulationError::TemperatureOutOfRange { temperature_k });
+    }
+    let props = super::pt::properties_pt(pressure_pa, temperature_k)?;
+    viscosity_pa_s(props.density_kg_m3, temperature_k)
+}
