@@ -20,6 +20,7 @@ pub mod regions;
 
 // region 3, saturation line, viscosity, inversions
 pub mod backward;
+pub mod inverse;
 pub mod pt;
 pub mod region3;
 pub mod saturation;
