@@ -1,9 +1,10 @@
 //! Backward equations T(p, h) and T(p, s) of Regions 1 and 2 against the
 //! release's verification tables, and the exact inversions built on them.
 //!
-//! The verification values below are NOT in /work/shared/reference: they are
-//! typed from memory of IAPWS R7-97(2012) Tables 7, 9, 24 and 29 and of the
-//! B2bc check value after Eq. 21.
+//! The verification values below are typed FROM MEMORY of IAPWS R7-97(2012)
+//! Tables 7, 9, 24 and 29 and of the B2bc check value after Eq. 21 (no copy
+//! of those tables was at hand). The coefficients were also written from
+//! memory; the two agree at every printed digit on all 24 points.
 
 use vapora_host_tests::tolerance::{printed_digits_match, relative_deviation};
 use vapora_tables::if97::backward;

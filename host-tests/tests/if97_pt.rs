@@ -5,7 +5,7 @@ use vapora_host_tests::tolerance::{printed_digits_match, relative_deviation};
 use vapora_tables::if97::{pt, region3, viscosity, FormulationError, Region};
 
 /// (p MPa, T K, v m³/kg printed, region): IAPWS R7-97(2012) Tables 5, 15 and
-/// 42 (from /work/shared/reference, typed in).
+/// 42 (typed in from the release).
 const POINTS: [(f64, f64, f64, Region); 9] = [
     (3.0, 300.0, 0.100215168e-2, Region::Region1), // Table 5
     (80.0, 300.0, 0.971180894e-3, Region::Region1), // Table 5

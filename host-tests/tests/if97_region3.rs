@@ -12,7 +12,7 @@ fn b23_pressure_pa(t: f64) -> f64 {
     (0.348_051_856_289_69e3 - 0.116_718_598_799_75e1 * t + 0.101_929_700_393_26e-2 * t * t) * 1e6
 }
 
-/// IAPWS R7-97(2012) Table 33 (from /work/shared/reference, typed in):
+/// IAPWS R7-97(2012) Table 33 (typed in from the release):
 /// (T K, ρ kg/m³, p MPa, h kJ/kg, u kJ/kg, s kJ/(kg K), cp kJ/(kg K), w m/s).
 const TABLE_33: [(f64, f64, [f64; 6]); 3] = [
     (

@@ -5,7 +5,7 @@ use vapora_host_tests::tolerance::{printed_digits_match, relative_deviation};
 use vapora_tables::if97::viscosity::viscosity_pa_s;
 use vapora_tables::if97::FormulationError;
 
-/// IAPWS R12-08 Table 4 (from /work/shared/reference, typed in):
+/// IAPWS R12-08 Table 4 (typed in from the release):
 /// (T K, ρ kg/m³, μ µPa·s, printed to 6 decimals).
 const TABLE_4: [(f64, f64, f64); 11] = [
     (298.15, 998.0, 889.735100),
