@@ -78,14 +78,15 @@ pub const MIN_TEMPERATURE_K: f64 = 623.15;
 pub const MAX_TEMPERATURE_K: f64 = 863.15;
 /// Highest pressure of Region 3, Pa (IAPWS R7-97(2012), section 4).
 pub const MAX_PRESSURE_PA: f64 = 100.0e6;
-/// Lowest density accepted by the (ρ, T) functions, kg/m³. Region 3 is
-/// bounded below by the B23 line, on which the density is above 80 kg/m³
-/// everywhere (checked by the test suite); 50 kg/m³ leaves margin for the
-/// metastable-vapour branch used in bracketing.
+/// Lowest density accepted by the (ρ, T) functions, kg/m³, and the low end
+/// of the density brackets: on every isotherm of 623.15 … 863.15 K,
+/// p₃(50 kg/m³, T) lies below both p_B23(T) and psat(T), so every Region 3
+/// state is denser (checked by the test suite).
 pub const MIN_DENSITY_KG_M3: f64 = 50.0;
-/// Highest density accepted by the (ρ, T) functions, kg/m³. The densest
-/// state of Region 3 is at 623.15 K, 100 MPa (about 713 kg/m³, checked by the
-/// test suite); 800 kg/m³ leaves margin.
+/// Highest density accepted by the (ρ, T) functions, kg/m³, and the high
+/// end of the density brackets: on every isotherm of 623.15 … 863.15 K,
+/// p₃(800 kg/m³, T) exceeds 100 MPa, so every Region 3 state is less dense
+/// (checked by the test suite).
 pub const MAX_DENSITY_KG_M3: f64 = 800.0;
 
 /// φ = f/(RT) and its derivatives at one (δ, τ) (IAPWS R7-97(2012), Table 32).
