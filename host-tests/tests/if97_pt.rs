@@ -96,3 +96,115 @@ fn viscosity_at_pressure_and_temperature() {
         Err(FormulationError::NotFinite)
     );
 }
+
+/// Over a wide sweep of inputs, including out-of-range and edge values,
+/// every function either returns a typed error or a result with every field
+/// finite (cp = +inf only at the critical point, by documented design);
+/// none panics.
+#[test]
+fn never_nan_inside_ok() {
+    use vapora_tables::if97::{inverse, saturation, Properties};
+    fn finite(p: &Properties) -> bool {
+        [
+            p.pressure_pa,
+            p.temperature_k,
+            p.density_kg_m3,
+            p.specific_volume_m3_kg,
+            p.enthalpy_j_kg,
+            p.internal_energy_j_kg,
+            p.entropy_j_kgk,
+            p.cp_j_kgk,
+            p.cv_j_kgk,
+            p.speed_of_sound_m_s,
+            p.isentropic_exponent,
+        ]
+        .iter()
+        .all(|x| x.is_finite())
+    }
+    let specials = [
+        f64::NAN,
+        f64::INFINITY,
+        f64::NEG_INFINITY,
+        0.0,
+        -0.0,
+        f64::MIN_POSITIVE,
+        f64::MAX,
+        -1.0,
+    ];
+    let mut temps: Vec<f64> = (0..=400)
+        .map(|k| 250.0 + 2100.0 * f64::from(k) / 400.0)
+        .collect();
+    temps.extend([
+        273.15,
+        273.16,
+        623.15,
+        647.096 - 1e-9,
+        647.096,
+        863.15,
+        1073.15,
+        1173.15,
+        2273.15,
+    ]);
+    temps.extend(specials);
+    let mut pressures: Vec<f64> = (0..=200)
+        .map(|k| 10f64.powf(-1.0 + 9.5 * f64::from(k) / 200.0))
+        .collect();
+    pressures.extend([611.213, 16.529_164_252_6e6, 22.064e6, 50e6, 100e6]);
+    pressures.extend(specials);
+    for &t in &temps {
+        if let Ok(s) = saturation::at_temperature(t) {
+            if t < 647.096 {
+                assert!(
+                    finite(&s.liquid) && finite(&s.vapour),
+                    "saturation T={t}: {s:?}"
+                );
+            }
+        }
+        for rho in [-1.0, 0.0, 1.0, 60.0, 322.0, 500.0, 799.0, 1000.0, f64::NAN] {
+            if let Ok(p) = region3::properties_rho_t(rho, t) {
+                assert!(finite(&p), "region3 rho={rho} T={t}: {p:?}");
+            }
+            if let Ok(mu) = viscosity::viscosity_pa_s(rho, t) {
+                assert!(
+                    mu.is_finite() && mu > 0.0,
+                    "viscosity rho={rho} T={t}: {mu}"
+                );
+            }
+        }
+        for &p in &pressures {
+            if let Ok(props) = pt::properties_pt(p, t) {
+                assert!(finite(&props), "pt p={p} T={t}: {props:?}");
+                for (x, entropy) in [(props.enthalpy_j_kg, false), (props.entropy_j_kgk, true)] {
+                    let r = if entropy {
+                        inverse::temperature_ps(p, x)
+                    } else {
+                        inverse::temperature_ph(p, x)
+                    };
+                    if let Ok((tb, _)) = r {
+                        assert!(tb.is_finite() && tb > 0.0, "inverse p={p} x={x}: {tb}");
+                    }
+                }
+            }
+            if let Ok(mu) = viscosity::viscosity_pt(p, t) {
+                assert!(mu.is_finite() && mu > 0.0, "viscosity_pt p={p} T={t}: {mu}");
+            }
+        }
+    }
+    for &p in &pressures {
+        if let Ok(s) = saturation::at_pressure(p) {
+            if p < 22.064e6 {
+                assert!(
+                    finite(&s.liquid) && finite(&s.vapour),
+                    "saturation p={p}: {s:?}"
+                );
+            }
+        }
+        for x in [-1e7, -1.0, 0.0, 1e3, 1e5, 1e6, 3e6, 1e7, 1e9, f64::NAN] {
+            for r in [inverse::temperature_ph(p, x), inverse::temperature_ps(p, x)] {
+                if let Ok((t, _)) = r {
+                    assert!(t.is_finite() && t > 0.0, "inverse p={p} x={x}: {t}");
+                }
+            }
+        }
+    }
+}
