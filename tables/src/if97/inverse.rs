@@ -21,6 +21,16 @@
 //! little beyond its boundary, so that the returned T always reproduces the
 //! input through the forward equation of the returned region.
 //!
+//! Near the critical point: within about 100 Pa of 22.064 MPa the Region 3
+//! isotherms are so flat near the saturated states that h(p, T) and s(p, T)
+//! are themselves ill-conditioned. The returned T still reproduces the input
+//! through this crate's Region 3 evaluation on the input's branch to the
+//! stated tolerance, but an independent density solve at that (p, T) agrees
+//! only to about 1e-8 (10–100 Pa below pc) … 1e-5 (at pc) relative in h
+//! (measured by the test suite). A (p, T) pair within a few mPa of the
+//! saturation line cannot say which branch it is on; `properties_pt` decides
+//! by psat(T) there, so for such T prefer the states of [`super::saturation`].
+//!
 //! Two-phase states: for 611.213 Pa ≤ p < 22.064 MPa and h′ < h < h″ (or
 //! s′ < s < s″), with h′, h″ the saturated states of [`super::saturation`],
 //! the result is `(Tsat(p), Region::Region4)`; the dryness fraction is then
