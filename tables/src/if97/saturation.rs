@@ -119,8 +119,9 @@ fn region3_states(
 /// Both saturated states at temperature T with no range check.
 ///
 /// The caller guarantees 273.15 K ≤ T ≤ Tc (outside, the result has no
-/// meaning). Cost: a few hundred nanoseconds up to 623.15 K; about 250
-/// evaluations of Eq. 28 (tens of microseconds) above it.
+/// meaning). Cost: two Region 1/2 evaluations (about 2 µs on a desktop
+/// host) up to 623.15 K; some tens of evaluations of Eq. 28 for the
+/// spinodals and the two roots (about 11 µs) above it.
 ///
 /// # Errors
 /// Never in the stated range (kept as a `Result` for the Region 3 solver's
