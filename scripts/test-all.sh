@@ -22,6 +22,9 @@ cargo test --workspace --all-features
 step "rustdoc (warnings denied)"
 RUSTDOCFLAGS="-D warnings" cargo doc --workspace --no-deps --all-features
 
+step "no panic path in the kernel (link-time proof, Cortex-M0 and M4F)"
+scripts/no-panic-check.sh
+
 if [ -x scripts/firmware-tests.sh ]; then
   step "firmware on emulated Cortex-M boards"
   scripts/firmware-tests.sh

@@ -1,0 +1,235 @@
+//! Link-time proof that no public kernel function can panic (see README.md).
+//!
+//! Every input comes from a volatile read, so the optimiser must keep every
+//! branch the kernel has for every possible bit pattern; every result goes
+//! to a volatile write, so no call can be removed as dead. The panic
+//! handler calls a function that exists nowhere: the image links only if
+//! the optimiser has proved that no panic can be reached from `_start`.
+//!
+//! This crate is the only place in the project with `unsafe`: volatile
+//! reads and writes of two statics. The kernel keeps `#![forbid(unsafe_code)]`.
+
+#![no_std]
+#![no_main]
+
+use core::ptr::{addr_of, addr_of_mut, read_volatile, write_volatile};
+
+use vapora_kernel::accuracy::{accuracy_at_saturation_temperature_k, SaturationAccuracy};
+use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
+use vapora_kernel::quality::{
+    phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
+    phase_from_temperature_enthalpy, phase_from_temperature_entropy, Phase,
+};
+use vapora_kernel::saturation::{
+    saturated_property_at_pressure, saturated_property_at_temperature,
+    saturated_state_at_pressure, saturated_state_at_temperature, saturation_pressure,
+    saturation_temperature, PhaseProperties, SaturatedProperty, SaturatedState,
+};
+use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::tables::saturation as table;
+use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
+
+/// Where the inputs come from: a volatile read of this returns a value the
+/// optimiser knows nothing about, every time.
+static mut INPUT_BITS: u32 = 0;
+/// Where every result goes.
+static mut SINK: u32 = 0;
+
+fn input_bits() -> u32 {
+    // SAFETY: a plain aligned read of a static nothing else touches
+    // concurrently (the image is never run; it is linked to prove a point).
+    unsafe { read_volatile(addr_of!(INPUT_BITS)) }
+}
+
+fn input() -> f32 {
+    f32::from_bits(input_bits())
+}
+
+fn sink_bits(bits: u32) {
+    // SAFETY: as above, a plain aligned write of a static.
+    unsafe { write_volatile(addr_of_mut!(SINK), bits) }
+}
+
+fn sink(x: f32) {
+    sink_bits(x.to_bits());
+}
+
+/// Errors are consumed through `core::error::Error`, not through their
+/// `Display`: every kernel error prints an f32, and core's float formatting
+/// keeps panic paths of its own (formatting a bare f32 here makes the link
+/// fail without any kernel code). Firmware logs errors with the `defmt`
+/// feature or by matching on the variant.
+fn sink_error<E: core::error::Error>(e: &E) {
+    sink_bits(u32::from(e.source().is_some()));
+}
+
+fn sink_result<T, E: core::error::Error>(r: Result<T, E>, ok: impl FnOnce(T)) {
+    match r {
+        Ok(v) => ok(v),
+        Err(e) => sink_error(&e),
+    }
+}
+
+fn sink_phase_properties(p: &PhaseProperties) {
+    sink(p.density_kg_m3);
+    sink(p.specific_volume_m3_kg);
+    sink(p.enthalpy_j_kg);
+    sink(p.entropy_j_kgk);
+    sink(p.cp_j_kgk);
+}
+
+fn sink_state(s: SaturatedState) {
+    sink(s.pressure.as_pa());
+    sink(s.temperature.as_kelvin());
+    sink_phase_properties(&s.liquid);
+    sink_phase_properties(&s.vapour);
+    sink(s.latent_heat_j_kg);
+    sink(s.entropy_of_vaporisation_j_kgk);
+}
+
+fn sink_wet_steam(w: WetSteam) {
+    sink(w.pressure.as_pa());
+    sink(w.temperature.as_kelvin());
+    sink(w.dryness_fraction);
+    sink(w.enthalpy_j_kg);
+    sink(w.entropy_j_kgk);
+    sink(w.specific_volume_m3_kg);
+    sink(w.density_kg_m3);
+}
+
+fn sink_phase(p: Phase) {
+    match p.dryness_fraction() {
+        Some(x) => sink(x),
+        None => sink_bits(u32::MAX),
+    }
+}
+
+fn sink_accuracy(a: &SaturationAccuracy) {
+    for v in [
+        a.temperature_k,
+        a.pressure_relative,
+        a.liquid_density_relative,
+        a.vapour_density_relative,
+        a.liquid_enthalpy_j_kg,
+        a.vapour_enthalpy_j_kg,
+        a.liquid_entropy_j_kgk,
+        a.vapour_entropy_j_kgk,
+        a.liquid_cp_relative,
+        a.vapour_cp_relative,
+        a.dryness_fraction,
+    ] {
+        sink(v);
+    }
+}
+
+/// Any of the properties, chosen by a volatile read.
+fn property() -> SaturatedProperty {
+    match input_bits() % 12 {
+        0 => SaturatedProperty::LiquidDensity,
+        1 => SaturatedProperty::VapourDensity,
+        2 => SaturatedProperty::LiquidSpecificVolume,
+        3 => SaturatedProperty::VapourSpecificVolume,
+        4 => SaturatedProperty::LiquidEnthalpy,
+        5 => SaturatedProperty::VapourEnthalpy,
+        6 => SaturatedProperty::LatentHeat,
+        7 => SaturatedProperty::LiquidEntropy,
+        8 => SaturatedProperty::VapourEntropy,
+        9 => SaturatedProperty::EntropyOfVaporisation,
+        10 => SaturatedProperty::LiquidCp,
+        _ => SaturatedProperty::VapourCp,
+    }
+}
+
+fn locate_and_evaluate<const P: usize>(table: &UniformCubicTable<P>) {
+    if let Some((block, t)) = table.locate(input()) {
+        for c in block {
+            sink(cubic(c, t));
+        }
+    } else {
+        sink_bits(0);
+    }
+}
+
+fn units() {
+    sink_result(AbsolutePressure::from_pa(input()), |p| sink(p.as_pa()));
+    sink_result(AbsolutePressure::from_kpa(input()), |p| sink(p.as_kpa()));
+    sink_result(AbsolutePressure::from_bar(input()), |p| sink(p.as_bar()));
+    sink_result(AbsolutePressure::from_mpa(input()), |p| sink(p.as_mpa()));
+    sink_result(GaugePressure::from_pa(input()), |p| sink(p.as_pa()));
+    sink_result(GaugePressure::from_kpa(input()), |p| sink(p.as_kpa()));
+    sink_result(GaugePressure::from_bar(input()), |p| sink(p.as_bar()));
+    sink_result(GaugePressure::from_mpa(input()), |p| sink(p.as_mpa()));
+    if let (Ok(gauge), Ok(ambient)) = (
+        GaugePressure::from_pa(input()),
+        AbsolutePressure::from_pa(input()),
+    ) {
+        sink_result(AbsolutePressure::from_gauge(gauge, ambient), |p| {
+            sink(p.as_pa());
+            sink(p.to_gauge(ambient).as_pa());
+        });
+    }
+    sink_result(Temperature::from_kelvin(input()), |t| sink(t.as_kelvin()));
+    sink_result(Temperature::from_celsius(input()), |t| sink(t.as_celsius()));
+}
+
+fn saturation() {
+    if let Ok(p) = AbsolutePressure::from_pa(input()) {
+        sink_result(saturation_temperature(p), |t| sink(t.as_kelvin()));
+        sink_result(saturated_state_at_pressure(p), sink_state);
+        sink_result(saturated_property_at_pressure(p, property()), sink);
+        sink_result(phase_from_pressure_enthalpy(p, input()), sink_phase);
+        sink_result(phase_from_pressure_entropy(p, input()), sink_phase);
+        sink_result(phase_from_pressure_specific_volume(p, input()), sink_phase);
+        sink_result(wet_steam_at_pressure(p, input()), sink_wet_steam);
+    }
+    if let Ok(t) = Temperature::from_kelvin(input()) {
+        sink_result(saturation_pressure(t), |p| sink(p.as_pa()));
+        sink_result(saturated_state_at_temperature(t), sink_state);
+        sink_result(saturated_property_at_temperature(t, property()), sink);
+        sink_result(phase_from_temperature_enthalpy(t, input()), sink_phase);
+        sink_result(phase_from_temperature_entropy(t, input()), sink_phase);
+        sink_result(wet_steam_at_temperature(t, input()), sink_wet_steam);
+    }
+    sink_accuracy(accuracy_at_saturation_temperature_k(input()));
+}
+
+fn spline() {
+    locate_and_evaluate(&table::STATE_LOW);
+    locate_and_evaluate(&table::STATE_HIGH);
+    locate_and_evaluate(&table::TEMPERATURE_LOW);
+    locate_and_evaluate(&table::TEMPERATURE_HIGH);
+}
+
+/// The self-check: one indexing the optimiser cannot prove in bounds. With
+/// this feature the link must fail, which shows the proof can fail.
+#[cfg(feature = "deliberate-panic")]
+fn deliberate_panic() {
+    let values = [input(), input(), input(), input()];
+    sink(values[input_bits() as usize]);
+}
+
+#[cfg(not(feature = "deliberate-panic"))]
+fn deliberate_panic() {}
+
+/// The entry point the linker keeps (the image is linked, never run).
+#[no_mangle]
+pub extern "C" fn _start() -> ! {
+    loop {
+        units();
+        saturation();
+        spline();
+        deliberate_panic();
+    }
+}
+
+#[panic_handler]
+fn panic(_: &core::panic::PanicInfo) -> ! {
+    extern "C" {
+        // Defined nowhere: referencing it makes any surviving panic path a
+        // link error that names this function.
+        fn vapora_kernel_panic_path_survived() -> !;
+    }
+    // SAFETY: never executed in a linked image; if it were reachable the
+    // link would have failed.
+    unsafe { vapora_kernel_panic_path_survived() }
+}
