@@ -5,6 +5,7 @@
 
 pub mod accuracy;
 pub mod error;
+pub mod integrity;
 pub mod mixture;
 pub mod quality;
 pub mod saturation;

@@ -2,7 +2,7 @@
 // Do not edit by hand. Regenerate with:
 //   cargo run -p vapora-tables --features generator --bin vapora-generate -- --output kernel/src/tables/saturation.rs
 // Settings: temperature_min_k=273.16 temperature_max_k=647.096 state_intervals_low=48 state_intervals_high=48 temperature_intervals_low=40 temperature_intervals_high=16 samples_per_interval=12 measurement_points_per_interval=64 critical_margin_k=0.01
-// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0x7c1638ae
+// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0xc812d842
 //! The generated saturation tables: four uniform cubic-spline tables and
 //! the constants that define their variables, produced by `vapora-generate`
 //! from the IAPWS-IF97 formulation in f64. Never edit by hand.
@@ -635,6 +635,11 @@ pub static STATE_LOW: UniformCubicTable<9> = UniformCubicTable {
     ],
 };
 
+/// CRC-32/ISO-HDLC of [`STATE_LOW`]'s data (start, inverse_step, every
+/// coefficient; each f32 as 4 little-endian bytes), checked by
+/// `crate::integrity::self_test`.
+pub const STATE_LOW_CRC32: u32 = 0xef2012c0;
+
 /// Saturated state from 623.15 K, indexed on τ = √(Tc − T) (√K).
 /// 48 intervals × 9 cubics × 16 bytes = 6912 bytes.
 pub static STATE_HIGH: UniformCubicTable<9> = UniformCubicTable {
@@ -1220,6 +1225,11 @@ pub static STATE_HIGH: UniformCubicTable<9> = UniformCubicTable {
     ],
 };
 
+/// CRC-32/ISO-HDLC of [`STATE_HIGH`]'s data (start, inverse_step, every
+/// coefficient; each f32 as 4 little-endian bytes), checked by
+/// `crate::integrity::self_test`.
+pub const STATE_HIGH_CRC32: u32 = 0x0d56cd6b;
+
 /// Saturation temperature T (K) below p_sat(623.15 K), indexed on ln p (ln Pa).
 /// 40 intervals × 1 cubics × 16 bytes = 640 bytes.
 pub static TEMPERATURE_LOW: UniformCubicTable<1> = UniformCubicTable {
@@ -1389,6 +1399,11 @@ pub static TEMPERATURE_LOW: UniformCubicTable<1> = UniformCubicTable {
     ],
 };
 
+/// CRC-32/ISO-HDLC of [`TEMPERATURE_LOW`]'s data (start, inverse_step, every
+/// coefficient; each f32 as 4 little-endian bytes), checked by
+/// `crate::integrity::self_test`.
+pub const TEMPERATURE_LOW_CRC32: u32 = 0xa8ef7198;
+
 /// τ = √(Tc − T_sat) (√K) from p_sat(623.15 K), indexed on σ = √(pc − p) (√Pa).
 /// 16 intervals × 1 cubics × 16 bytes = 256 bytes.
 pub static TEMPERATURE_HIGH: UniformCubicTable<1> = UniformCubicTable {
@@ -1461,6 +1476,11 @@ pub static TEMPERATURE_HIGH: UniformCubicTable<1> = UniformCubicTable {
         ],
     ],
 };
+
+/// CRC-32/ISO-HDLC of [`TEMPERATURE_HIGH`]'s data (start, inverse_step, every
+/// coefficient; each f32 as 4 little-endian bytes), checked by
+/// `crate::integrity::self_test`.
+pub const TEMPERATURE_HIGH_CRC32: u32 = 0x431b3743;
 
 /// Accuracy bound for saturation temperatures below Tc − 1 K (generator's measurement).
 pub const ACCURACY_BELOW_NEAR_CRITICAL: SaturationAccuracy = SaturationAccuracy {

@@ -70,6 +70,33 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
         out.push_str("        ],\n");
     }
     out.push_str("    ],\n};\n\n");
+    table_crc(out, name, t);
+}
+
+/// CRC-32/ISO-HDLC of a table's data as the kernel stores it: `start`,
+/// `inverse_step`, then every coefficient in storage order, each f32 as the
+/// 4 little-endian bytes of its bit pattern. The kernel's
+/// `integrity::TableData::checksum` computes the same on the device.
+pub fn table_data_checksum<const P: usize>(t: &Table<P>) -> u32 {
+    let mut bytes = std::vec::Vec::with_capacity(8 + t.size_bytes());
+    bytes.extend_from_slice(&t.knots.start.to_bits().to_le_bytes());
+    bytes.extend_from_slice(&t.knots.inverse_step.to_bits().to_le_bytes());
+    for block in &t.intervals {
+        for c in block.iter().flatten() {
+            bytes.extend_from_slice(&c.to_bits().to_le_bytes());
+        }
+    }
+    checksum(&bytes)
+}
+
+fn table_crc<const P: usize>(out: &mut String, name: &str, t: &Table<P>) {
+    out.push_str(&format!(
+        "/// CRC-32/ISO-HDLC of [`{name}`]'s data (start, inverse_step, every\n\
+         /// coefficient; each f32 as 4 little-endian bytes), checked by\n\
+         /// `crate::integrity::self_test`.\n\
+         pub const {name}_CRC32: u32 = 0x{:08x};\n\n",
+        table_data_checksum(t)
+    ));
 }
 
 fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima) {
