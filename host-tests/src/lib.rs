@@ -3,4 +3,5 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+pub mod robustness;
 pub mod tolerance;

@@ -15,6 +15,7 @@
 use core::ptr::{addr_of, addr_of_mut, read_volatile, write_volatile};
 
 use vapora_kernel::accuracy::{accuracy_at_saturation_temperature_k, SaturationAccuracy};
+use vapora_kernel::integrity::{check_checksums, check_spot_points, self_test, TableData, TableSet};
 use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
 use vapora_kernel::quality::{
     phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
@@ -200,6 +201,21 @@ fn spline() {
     locate_and_evaluate(&table::TEMPERATURE_HIGH);
 }
 
+fn integrity() {
+    sink_result(self_test(), |()| sink_bits(1));
+    sink_result(check_spot_points(), |()| sink_bits(2));
+    // The CRCs to compare with come from volatile reads, so the comparison
+    // cannot be decided at compile time.
+    let mut tables = TableSet::compiled();
+    tables.state_low.1 = input_bits();
+    tables.state_high.1 = input_bits();
+    tables.temperature_low.1 = input_bits();
+    tables.temperature_high.1 = input_bits();
+    sink_result(check_checksums(&tables), |()| sink_bits(3));
+    sink_bits(TableData::of(&table::STATE_LOW).checksum());
+    sink_bits(TableData::of(&table::TEMPERATURE_HIGH).checksum());
+}
+
 /// The self-check: one indexing the optimiser cannot prove in bounds. With
 /// this feature the link must fail, which shows the proof can fail.
 #[cfg(feature = "deliberate-panic")]
@@ -218,6 +234,7 @@ pub extern "C" fn _start() -> ! {
         units();
         saturation();
         spline();
+        integrity();
         deliberate_panic();
     }
 }

@@ -1,0 +1,681 @@
+//! The robustness property shared by the property tests
+//! (`tests/robustness_*.rs`) and the fuzz target (`kernel/fuzz`): for any
+//! input bits, every public kernel function returns either a typed error or
+//! an `Ok` holding finite values inside the physical range of each
+//! property. [`check`] calls one function, named as in the kernel, on raw
+//! f32 inputs and says what, if anything, broke the property.
+//!
+//! # The ranges asserted
+//! Saturation line (from the compiled tables' limits, widened by the
+//! kernel's own stated accuracy at that end, because the spline's value at
+//! a limit is within that bound of the formulation's, not equal to it):
+//! - saturation temperature: [`TEMPERATURE_MIN_K`] − δT to
+//!   [`TEMPERATURE_MAX_K`] + δT (273.16 K to 647.096 K by default), δT the
+//!   larger temperature bound of the two accuracy zones;
+//! - saturation pressure: [`PRESSURE_MIN_PA`]·(1 − δp) to
+//!   [`PRESSURE_MAX_PA`]·(1 + δp), δp the larger relative bound.
+//!
+//! Properties of either phase on the line (bounds of the physical values
+//! on the saturation line, rounded outward; the values are from memory of
+//! the IF97 saturation tables: ρ' at most 999.97 kg/m³ near 277 K, v'' at
+//! the triple point 206.0 m³/kg, h'' at most 2803 kJ/kg near 3 MPa, s'' at
+//! the triple point 9155.5 J/(kg·K), h_fg at the triple point 2500.9 kJ/kg):
+//! - density ρ', ρ'' and of wet steam: 0 < ρ ≤ [`DENSITY_MAX_KG_M3`];
+//! - specific volume: 1/[`DENSITY_MAX_KG_M3`] ≤ v ≤ [`SPECIFIC_VOLUME_MAX_M3_KG`];
+//! - enthalpy: [`ENTHALPY_MIN_J_KG`] ≤ h ≤ [`ENTHALPY_MAX_J_KG`];
+//! - entropy: [`ENTROPY_MIN_J_KGK`] ≤ s ≤ [`ENTROPY_MAX_J_KGK`];
+//! - isobaric heat capacity: [`CP_MIN_J_KGK`] ≤ cp ≤ [`CP_MAX_J_KGK`] (the
+//!   kernel caps cp at 1e10 J/(kg·K) next to the critical point);
+//! - latent heat: 0 ≤ h_fg ≤ [`LATENT_HEAT_MAX_J_KG`]; s_fg: 0 ≤ s_fg ≤
+//!   [`ENTROPY_MAX_J_KGK`];
+//! - dryness fraction: 0 ≤ x ≤ 1, and for [`Phase::WetSteam`] strictly
+//!   inside the saturation tolerance band;
+//! - wet steam: h, s and v between the saturated liquid's and vapour's
+//!   (within f32 rounding of the lever rule), ρ = 1/v.
+//!
+//! Units: constructors that succeed hold exactly the value given (Pa, K) or
+//! its finite conversion; absolute pressures are ≥ 0 and temperatures > 0.
+//! Spline look-up (a low-level function that does not check its range):
+//! any x, NaN included, gives an interval and a t that is not NaN and
+//! ≥ 0; for x inside the table's range t ≤ 1 + 1e-3 and the cubics of the
+//! compiled tables are finite there. Outside the range t extrapolates
+//! (+∞ for x so large that (x − start)·inverse_step overflows).
+
+use std::format;
+use std::string::String;
+
+use vapora_kernel::accuracy::{
+    accuracy_at_saturation_temperature_k, SaturationAccuracy, ACCURACY_BELOW_NEAR_CRITICAL,
+    ACCURACY_NEAR_CRITICAL,
+};
+use vapora_kernel::integrity::{self, TableData, TableSet};
+use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
+use vapora_kernel::quality::{
+    phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
+    phase_from_temperature_enthalpy, phase_from_temperature_entropy, Phase, SATURATION_TOLERANCE,
+};
+use vapora_kernel::saturation::{
+    saturated_property_at_pressure, saturated_property_at_temperature, saturated_state_at_pressure,
+    saturated_state_at_temperature, saturation_pressure, saturation_temperature, PhaseProperties,
+    SaturatedProperty, SaturatedState, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K,
+    TEMPERATURE_MIN_K,
+};
+use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::tables::saturation as table;
+use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
+
+/// Highest density accepted on the line, kg/m³ (ρ' peaks at 999.97 kg/m³
+/// near 277 K; IF97 saturation values from memory, rounded up).
+pub const DENSITY_MAX_KG_M3: f32 = 1100.0;
+/// Highest specific volume accepted, m³/kg (v'' = 206.0 m³/kg at the triple
+/// point, from memory, rounded up).
+pub const SPECIFIC_VOLUME_MAX_M3_KG: f32 = 210.0;
+/// Lowest enthalpy accepted, J/kg: h' = 0.61 J/kg at the triple point (IF97
+/// reference state u' = s' = 0), less ten times the kernel's 10 J/kg bound.
+pub const ENTHALPY_MIN_J_KG: f32 = -100.0;
+/// Highest enthalpy accepted, J/kg (h'' peaks at 2803 kJ/kg near 3 MPa,
+/// from memory, rounded up).
+pub const ENTHALPY_MAX_J_KG: f32 = 2.81e6;
+/// Lowest entropy accepted, J/(kg·K): s' = 0 at the triple point, less fifty
+/// times the kernel's 0.02 J/(kg·K) bound.
+pub const ENTROPY_MIN_J_KGK: f32 = -1.0;
+/// Highest entropy accepted, J/(kg·K) (s'' = 9155.5 J/(kg·K) at the triple
+/// point, from memory, rounded up).
+pub const ENTROPY_MAX_J_KGK: f32 = 9.16e3;
+/// Lowest heat capacity accepted, J/(kg·K) (cp'' is about 1.85 kJ/(kg·K) at
+/// the triple point, the lowest on the line; common practice, no source).
+pub const CP_MIN_J_KGK: f32 = 1.0e3;
+/// Highest heat capacity accepted, J/(kg·K): the kernel's cap of 1e10 next
+/// to the critical point, with f32 rounding of 1/1e-10.
+pub const CP_MAX_J_KGK: f32 = 1.001e10;
+/// Highest latent heat accepted, J/kg (h_fg = 2500.9 kJ/kg at the triple
+/// point, from memory, rounded up).
+pub const LATENT_HEAT_MAX_J_KG: f32 = 2.51e6;
+
+/// Every public function of the kernel that [`check`] exercises, by its path
+/// inside its module (methods as `Type::method`). The coverage test
+/// (`tests/robustness_coverage.rs`) parses `kernel/src` and fails if a
+/// public function is missing here, or listed here but not called in this
+/// file, the no-panic image or the fuzz target.
+pub const CHECKED_FUNCTIONS: &[&str] = &[
+    "AbsolutePressure::from_pa",
+    "AbsolutePressure::from_kpa",
+    "AbsolutePressure::from_bar",
+    "AbsolutePressure::from_mpa",
+    "AbsolutePressure::from_gauge",
+    "AbsolutePressure::as_pa",
+    "AbsolutePressure::as_kpa",
+    "AbsolutePressure::as_bar",
+    "AbsolutePressure::as_mpa",
+    "AbsolutePressure::to_gauge",
+    "GaugePressure::from_pa",
+    "GaugePressure::from_kpa",
+    "GaugePressure::from_bar",
+    "GaugePressure::from_mpa",
+    "GaugePressure::as_pa",
+    "GaugePressure::as_kpa",
+    "GaugePressure::as_bar",
+    "GaugePressure::as_mpa",
+    "Temperature::from_kelvin",
+    "Temperature::from_celsius",
+    "Temperature::as_kelvin",
+    "Temperature::as_celsius",
+    "saturation_temperature",
+    "saturation_pressure",
+    "saturated_state_at_pressure",
+    "saturated_state_at_temperature",
+    "saturated_property_at_pressure",
+    "saturated_property_at_temperature",
+    "Phase::dryness_fraction",
+    "phase_from_pressure_enthalpy",
+    "phase_from_pressure_entropy",
+    "phase_from_pressure_specific_volume",
+    "phase_from_temperature_enthalpy",
+    "phase_from_temperature_entropy",
+    "wet_steam_at_pressure",
+    "wet_steam_at_temperature",
+    "accuracy_at_saturation_temperature_k",
+    "UniformCubicTable::locate",
+    "cubic",
+    "self_test",
+    "check_checksums",
+    "check_spot_points",
+    "TableSet::compiled",
+    "TableData::of",
+    "TableData::checksum",
+];
+
+/// Which inputs of [`check`] a function reads, so that sweeps need not
+/// repeat a call with inputs it ignores.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct InputShape {
+    /// Reads `a`.
+    pub a: bool,
+    /// Reads `b`.
+    pub b: bool,
+    /// Number of distinct selectors that matter (1: ignores it).
+    pub selectors: u32,
+}
+
+/// The inputs the named function reads in [`check`].
+pub fn input_shape(function: &str) -> InputShape {
+    let (a, b, selectors) = match function {
+        "AbsolutePressure::from_gauge"
+        | "AbsolutePressure::to_gauge"
+        | "Phase::dryness_fraction"
+        | "phase_from_pressure_enthalpy"
+        | "phase_from_pressure_entropy"
+        | "phase_from_pressure_specific_volume"
+        | "phase_from_temperature_enthalpy"
+        | "phase_from_temperature_entropy"
+        | "wet_steam_at_pressure"
+        | "wet_steam_at_temperature" => (true, true, 1),
+        "saturated_property_at_pressure" | "saturated_property_at_temperature" => {
+            (true, false, PROPERTIES.len() as u32)
+        }
+        "UniformCubicTable::locate" | "cubic" => (true, false, 4),
+        // The integrity functions read no input at all.
+        "self_test" | "check_checksums" | "check_spot_points" | "TableSet::compiled" => {
+            (false, false, 1)
+        }
+        "TableData::of" | "TableData::checksum" => (false, false, 4),
+        _ => (true, false, 1),
+    };
+    InputShape { a, b, selectors }
+}
+
+/// Every saturated property, in declaration order.
+pub const PROPERTIES: [SaturatedProperty; 12] = [
+    SaturatedProperty::LiquidDensity,
+    SaturatedProperty::VapourDensity,
+    SaturatedProperty::LiquidSpecificVolume,
+    SaturatedProperty::VapourSpecificVolume,
+    SaturatedProperty::LiquidEnthalpy,
+    SaturatedProperty::VapourEnthalpy,
+    SaturatedProperty::LatentHeat,
+    SaturatedProperty::LiquidEntropy,
+    SaturatedProperty::VapourEntropy,
+    SaturatedProperty::EntropyOfVaporisation,
+    SaturatedProperty::LiquidCp,
+    SaturatedProperty::VapourCp,
+];
+
+/// Why a result broke the property.
+type Violation = String;
+
+fn larger(a: f32, b: f32) -> f32 {
+    if a > b {
+        a
+    } else {
+        b
+    }
+}
+
+fn temperature_slack_k() -> f32 {
+    larger(
+        ACCURACY_BELOW_NEAR_CRITICAL.temperature_k,
+        ACCURACY_NEAR_CRITICAL.temperature_k,
+    )
+}
+
+fn pressure_slack_relative() -> f32 {
+    larger(
+        ACCURACY_BELOW_NEAR_CRITICAL.pressure_relative,
+        ACCURACY_NEAR_CRITICAL.pressure_relative,
+    )
+}
+
+fn in_range(what: &str, v: f32, low: f32, high: f32) -> Result<(), Violation> {
+    if v.is_finite() && v >= low && v <= high {
+        Ok(())
+    } else {
+        Err(format!("{what} = {v:e} outside [{low:e}, {high:e}]"))
+    }
+}
+
+fn finite(what: &str, v: f32) -> Result<(), Violation> {
+    if v.is_finite() {
+        Ok(())
+    } else {
+        Err(format!("{what} = {v} is not finite"))
+    }
+}
+
+/// Saturation temperature on the line, K.
+pub fn check_saturation_temperature(t: Temperature) -> Result<(), Violation> {
+    let slack = temperature_slack_k();
+    in_range(
+        "saturation temperature (K)",
+        t.as_kelvin(),
+        TEMPERATURE_MIN_K - slack,
+        TEMPERATURE_MAX_K + slack,
+    )
+}
+
+/// Saturation pressure on the line, Pa.
+pub fn check_saturation_pressure(p: AbsolutePressure) -> Result<(), Violation> {
+    let slack = pressure_slack_relative();
+    in_range(
+        "saturation pressure (Pa)",
+        p.as_pa(),
+        PRESSURE_MIN_PA * (1.0 - slack),
+        PRESSURE_MAX_PA * (1.0 + slack),
+    )
+}
+
+fn check_density(what: &str, rho: f32) -> Result<(), Violation> {
+    if rho > 0.0 {
+        in_range(what, rho, 0.0, DENSITY_MAX_KG_M3)
+    } else {
+        Err(format!("{what} = {rho:e} is not positive"))
+    }
+}
+
+fn check_volume(what: &str, v: f32) -> Result<(), Violation> {
+    in_range(what, v, 1.0 / DENSITY_MAX_KG_M3, SPECIFIC_VOLUME_MAX_M3_KG)
+}
+
+fn check_enthalpy(what: &str, h: f32) -> Result<(), Violation> {
+    in_range(what, h, ENTHALPY_MIN_J_KG, ENTHALPY_MAX_J_KG)
+}
+
+fn check_entropy(what: &str, s: f32) -> Result<(), Violation> {
+    in_range(what, s, ENTROPY_MIN_J_KGK, ENTROPY_MAX_J_KGK)
+}
+
+fn check_phase_properties(what: &str, p: &PhaseProperties) -> Result<(), Violation> {
+    check_density(&format!("{what} density"), p.density_kg_m3)?;
+    check_volume(&format!("{what} specific volume"), p.specific_volume_m3_kg)?;
+    check_enthalpy(&format!("{what} enthalpy"), p.enthalpy_j_kg)?;
+    check_entropy(&format!("{what} entropy"), p.entropy_j_kgk)?;
+    in_range(
+        &format!("{what} cp"),
+        p.cp_j_kgk,
+        CP_MIN_J_KGK,
+        CP_MAX_J_KGK,
+    )
+}
+
+/// Every field of a saturated state.
+pub fn check_state(s: &SaturatedState) -> Result<(), Violation> {
+    check_saturation_pressure(s.pressure)?;
+    check_saturation_temperature(s.temperature)?;
+    check_phase_properties("liquid", &s.liquid)?;
+    check_phase_properties("vapour", &s.vapour)?;
+    in_range("latent heat", s.latent_heat_j_kg, 0.0, LATENT_HEAT_MAX_J_KG)?;
+    in_range(
+        "entropy of vaporisation",
+        s.entropy_of_vaporisation_j_kgk,
+        0.0,
+        ENTROPY_MAX_J_KGK,
+    )
+}
+
+/// One saturated property, in the range of its kind.
+pub fn check_property(property: SaturatedProperty, v: f32) -> Result<(), Violation> {
+    let what = format!("{property:?}");
+    match property {
+        SaturatedProperty::LiquidDensity | SaturatedProperty::VapourDensity => {
+            check_density(&what, v)
+        }
+        SaturatedProperty::LiquidSpecificVolume | SaturatedProperty::VapourSpecificVolume => {
+            check_volume(&what, v)
+        }
+        SaturatedProperty::LiquidEnthalpy | SaturatedProperty::VapourEnthalpy => {
+            check_enthalpy(&what, v)
+        }
+        SaturatedProperty::LatentHeat => in_range(&what, v, 0.0, LATENT_HEAT_MAX_J_KG),
+        SaturatedProperty::LiquidEntropy | SaturatedProperty::VapourEntropy => {
+            check_entropy(&what, v)
+        }
+        SaturatedProperty::EntropyOfVaporisation => in_range(&what, v, 0.0, ENTROPY_MAX_J_KGK),
+        SaturatedProperty::LiquidCp | SaturatedProperty::VapourCp => {
+            in_range(&what, v, CP_MIN_J_KGK, CP_MAX_J_KGK)
+        }
+        other => Err(format!("no range known for {other:?}")),
+    }
+}
+
+/// A phase: its dryness fraction, where defined, in [0, 1].
+pub fn check_phase(phase: Phase) -> Result<(), Violation> {
+    if let Phase::WetSteam { dryness_fraction } = phase {
+        in_range(
+            "wet-steam dryness fraction",
+            dryness_fraction,
+            SATURATION_TOLERANCE,
+            1.0 - SATURATION_TOLERANCE,
+        )?;
+    }
+    match phase.dryness_fraction() {
+        Some(x) => in_range("dryness fraction", x, 0.0, 1.0),
+        None => Ok(()),
+    }
+}
+
+/// `v` between `a` and `b` (either order) within f32 rounding of a lever
+/// rule on values of magnitude up to `scale`.
+fn between(what: &str, v: f32, a: f32, b: f32, scale: f32) -> Result<(), Violation> {
+    let (low, high) = if a <= b { (a, b) } else { (b, a) };
+    let slack = 4.0 * f32::EPSILON * scale;
+    if v.is_finite() && v >= low - slack && v <= high + slack {
+        Ok(())
+    } else {
+        Err(format!("{what} = {v:e} not between {a:e} and {b:e}"))
+    }
+}
+
+/// A wet-steam mixture against the saturated state at its own point.
+pub fn check_wet_steam(w: &WetSteam, saturated: &SaturatedState) -> Result<(), Violation> {
+    check_saturation_pressure(w.pressure)?;
+    check_saturation_temperature(w.temperature)?;
+    in_range("dryness fraction", w.dryness_fraction, 0.0, 1.0)?;
+    check_enthalpy("wet-steam enthalpy", w.enthalpy_j_kg)?;
+    check_entropy("wet-steam entropy", w.entropy_j_kgk)?;
+    check_volume("wet-steam specific volume", w.specific_volume_m3_kg)?;
+    check_density("wet-steam density", w.density_kg_m3)?;
+    let (l, v) = (&saturated.liquid, &saturated.vapour);
+    between(
+        "wet-steam enthalpy",
+        w.enthalpy_j_kg,
+        l.enthalpy_j_kg,
+        v.enthalpy_j_kg,
+        ENTHALPY_MAX_J_KG,
+    )?;
+    between(
+        "wet-steam entropy",
+        w.entropy_j_kgk,
+        l.entropy_j_kgk,
+        v.entropy_j_kgk,
+        ENTROPY_MAX_J_KGK,
+    )?;
+    between(
+        "wet-steam specific volume",
+        w.specific_volume_m3_kg,
+        l.specific_volume_m3_kg,
+        v.specific_volume_m3_kg,
+        larger(l.specific_volume_m3_kg, v.specific_volume_m3_kg),
+    )
+}
+
+fn check_accuracy(a: &SaturationAccuracy) -> Result<(), Violation> {
+    for (what, v) in [
+        ("temperature_k", a.temperature_k),
+        ("pressure_relative", a.pressure_relative),
+        ("liquid_density_relative", a.liquid_density_relative),
+        ("vapour_density_relative", a.vapour_density_relative),
+        ("liquid_enthalpy_j_kg", a.liquid_enthalpy_j_kg),
+        ("vapour_enthalpy_j_kg", a.vapour_enthalpy_j_kg),
+        ("liquid_entropy_j_kgk", a.liquid_entropy_j_kgk),
+        ("vapour_entropy_j_kgk", a.vapour_entropy_j_kgk),
+        ("liquid_cp_relative", a.liquid_cp_relative),
+        ("vapour_cp_relative", a.vapour_cp_relative),
+        ("dryness_fraction", a.dryness_fraction),
+    ] {
+        if !(v.is_finite() && v > 0.0) {
+            return Err(format!(
+                "accuracy bound {what} = {v} is not finite and positive"
+            ));
+        }
+    }
+    Ok(())
+}
+
+/// Error values must say something when printed (firmware logs them).
+fn check_error<E: core::error::Error>(e: &E) -> Result<(), Violation> {
+    if format!("{e}").is_empty() {
+        Err(format!("error {e:?} prints as an empty string"))
+    } else {
+        Ok(())
+    }
+}
+
+fn result<T, E: core::error::Error>(
+    r: Result<T, E>,
+    ok: impl FnOnce(T) -> Result<(), Violation>,
+) -> Result<(), Violation> {
+    match r {
+        Ok(v) => ok(v),
+        Err(e) => check_error(&e),
+    }
+}
+
+fn check_locate<const P: usize>(
+    name: &str,
+    t: &UniformCubicTable<P>,
+    x: f32,
+) -> Result<(), Violation> {
+    let Some((block, u)) = t.locate(x) else {
+        return Err(format!("{name}.locate({x:e}) found no interval"));
+    };
+    // Outside its range a table extrapolates: t grows with the distance
+    // (and is +∞ for x far enough that (x − start)·inverse_step overflows).
+    // The kernel's functions check the range before they look up.
+    if u.is_nan() || u < 0.0 {
+        return Err(format!("{name}.locate({x:e}) gave t = {u:e}"));
+    }
+    let end = t.start + t.intervals.len() as f32 / t.inverse_step;
+    if x >= t.start && x <= end {
+        if u > 1.0 + 1e-3 {
+            return Err(format!(
+                "{name}.locate({x:e}) inside the table gave t = {u:e}"
+            ));
+        }
+        for (q, c) in block.iter().enumerate() {
+            finite(&format!("{name} quantity {q} at x = {x:e}"), cubic(c, u))?;
+        }
+    }
+    Ok(())
+}
+
+/// The named function on raw inputs `a`, `b` (f32 bit patterns already
+/// decoded) and a selector for enumerations (which saturated property,
+/// which table). `Err` says which result broke the property; an unknown
+/// name is an `Err` too, so a typo in [`CHECKED_FUNCTIONS`] cannot pass.
+pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violation> {
+    let property = PROPERTIES[selector as usize % PROPERTIES.len()];
+    match function {
+        "AbsolutePressure::from_pa" => result(AbsolutePressure::from_pa(a), |p| {
+            if p.as_pa().to_bits() == a.to_bits() && a >= 0.0 {
+                Ok(())
+            } else {
+                Err(format!("from_pa({a:e}) holds {:e}", p.as_pa()))
+            }
+        }),
+        "AbsolutePressure::from_kpa" => result(AbsolutePressure::from_kpa(a), |p| {
+            in_range("absolute pressure (kPa)", p.as_kpa(), 0.0, f32::MAX)
+        }),
+        "AbsolutePressure::from_bar" => result(AbsolutePressure::from_bar(a), |p| {
+            in_range("absolute pressure (bar)", p.as_bar(), 0.0, f32::MAX)
+        }),
+        "AbsolutePressure::from_mpa" => result(AbsolutePressure::from_mpa(a), |p| {
+            in_range("absolute pressure (MPa)", p.as_mpa(), 0.0, f32::MAX)
+        }),
+        "AbsolutePressure::from_gauge" => {
+            let (Ok(gauge), Ok(ambient)) =
+                (GaugePressure::from_pa(a), AbsolutePressure::from_pa(b))
+            else {
+                return Ok(());
+            };
+            result(AbsolutePressure::from_gauge(gauge, ambient), |p| {
+                in_range("absolute pressure (Pa)", p.as_pa(), 0.0, f32::MAX)
+            })
+        }
+        "AbsolutePressure::as_pa"
+        | "AbsolutePressure::as_kpa"
+        | "AbsolutePressure::as_bar"
+        | "AbsolutePressure::as_mpa" => result(AbsolutePressure::from_pa(a), |p| {
+            in_range("Pa", p.as_pa(), 0.0, f32::MAX)?;
+            in_range("kPa", p.as_kpa(), 0.0, f32::MAX)?;
+            in_range("bar", p.as_bar(), 0.0, f32::MAX)?;
+            in_range("MPa", p.as_mpa(), 0.0, f32::MAX)
+        }),
+        "AbsolutePressure::to_gauge" => {
+            let (Ok(p), Ok(ambient)) = (AbsolutePressure::from_pa(a), AbsolutePressure::from_pa(b))
+            else {
+                return Ok(());
+            };
+            finite("gauge pressure (Pa)", p.to_gauge(ambient).as_pa())
+        }
+        "GaugePressure::from_pa"
+        | "GaugePressure::from_kpa"
+        | "GaugePressure::from_bar"
+        | "GaugePressure::from_mpa"
+        | "GaugePressure::as_pa"
+        | "GaugePressure::as_kpa"
+        | "GaugePressure::as_bar"
+        | "GaugePressure::as_mpa" => {
+            for g in [
+                GaugePressure::from_pa(a),
+                GaugePressure::from_kpa(a),
+                GaugePressure::from_bar(a),
+                GaugePressure::from_mpa(a),
+            ] {
+                result(g, |g| {
+                    finite("gauge Pa", g.as_pa())?;
+                    finite("gauge kPa", g.as_kpa())?;
+                    finite("gauge bar", g.as_bar())?;
+                    finite("gauge MPa", g.as_mpa())
+                })?;
+            }
+            Ok(())
+        }
+        "Temperature::from_kelvin" | "Temperature::as_kelvin" => {
+            result(Temperature::from_kelvin(a), |t| {
+                in_range(
+                    "temperature (K)",
+                    t.as_kelvin(),
+                    f32::MIN_POSITIVE * 0.0,
+                    f32::MAX,
+                )?;
+                if t.as_kelvin() > 0.0 && t.as_kelvin().to_bits() == a.to_bits() {
+                    Ok(())
+                } else {
+                    Err(format!("from_kelvin({a:e}) holds {:e}", t.as_kelvin()))
+                }
+            })
+        }
+        "Temperature::from_celsius" | "Temperature::as_celsius" => {
+            result(Temperature::from_celsius(a), |t| {
+                if t.as_kelvin() > 0.0 && t.as_kelvin().is_finite() {
+                    finite("temperature (°C)", t.as_celsius())
+                } else {
+                    Err(format!("from_celsius({a:e}) holds {:e} K", t.as_kelvin()))
+                }
+            })
+        }
+        "saturation_temperature" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(saturation_temperature(p), check_saturation_temperature),
+            Err(_) => Ok(()),
+        },
+        "saturation_pressure" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(saturation_pressure(t), check_saturation_pressure),
+            Err(_) => Ok(()),
+        },
+        "saturated_state_at_pressure" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(saturated_state_at_pressure(p), |s| check_state(&s)),
+            Err(_) => Ok(()),
+        },
+        "saturated_state_at_temperature" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(saturated_state_at_temperature(t), |s| check_state(&s)),
+            Err(_) => Ok(()),
+        },
+        "saturated_property_at_pressure" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(saturated_property_at_pressure(p, property), |v| {
+                check_property(property, v)
+            }),
+            Err(_) => Ok(()),
+        },
+        "saturated_property_at_temperature" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(saturated_property_at_temperature(t, property), |v| {
+                check_property(property, v)
+            }),
+            Err(_) => Ok(()),
+        },
+        "Phase::dryness_fraction" | "phase_from_pressure_enthalpy" => {
+            match AbsolutePressure::from_pa(a) {
+                Ok(p) => result(phase_from_pressure_enthalpy(p, b), check_phase),
+                Err(_) => Ok(()),
+            }
+        }
+        "phase_from_pressure_entropy" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(phase_from_pressure_entropy(p, b), check_phase),
+            Err(_) => Ok(()),
+        },
+        "phase_from_pressure_specific_volume" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(phase_from_pressure_specific_volume(p, b), check_phase),
+            Err(_) => Ok(()),
+        },
+        "phase_from_temperature_enthalpy" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(phase_from_temperature_enthalpy(t, b), check_phase),
+            Err(_) => Ok(()),
+        },
+        "phase_from_temperature_entropy" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(phase_from_temperature_entropy(t, b), check_phase),
+            Err(_) => Ok(()),
+        },
+        "wet_steam_at_pressure" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(wet_steam_at_pressure(p, b), |w| {
+                let s = saturated_state_at_pressure(p)
+                    .map_err(|e| format!("wet steam computed where the state is {e}"))?;
+                check_wet_steam(&w, &s)
+            }),
+            Err(_) => Ok(()),
+        },
+        "wet_steam_at_temperature" => match Temperature::from_kelvin(a) {
+            Ok(t) => result(wet_steam_at_temperature(t, b), |w| {
+                let s = saturated_state_at_temperature(t)
+                    .map_err(|e| format!("wet steam computed where the state is {e}"))?;
+                check_wet_steam(&w, &s)
+            }),
+            Err(_) => Ok(()),
+        },
+        "accuracy_at_saturation_temperature_k" => {
+            check_accuracy(accuracy_at_saturation_temperature_k(a))
+        }
+        "UniformCubicTable::locate" | "cubic" => match selector % 4 {
+            0 => check_locate("STATE_LOW", &table::STATE_LOW, a),
+            1 => check_locate("STATE_HIGH", &table::STATE_HIGH, a),
+            2 => check_locate("TEMPERATURE_LOW", &table::TEMPERATURE_LOW, a),
+            _ => check_locate("TEMPERATURE_HIGH", &table::TEMPERATURE_HIGH, a),
+        },
+        // The integrity functions take no untrusted input; they must pass
+        // on the compiled tables whatever the other inputs are.
+        "self_test" => integrity::self_test().map_err(|e| format!("self-test failed: {e}")),
+        "check_checksums" | "TableSet::compiled" => {
+            integrity::check_checksums(&TableSet::compiled())
+                .map_err(|e| format!("check_checksums failed: {e}"))
+        }
+        "check_spot_points" => {
+            integrity::check_spot_points().map_err(|e| format!("spot check failed: {e}"))
+        }
+        "TableData::of" | "TableData::checksum" => {
+            let (computed, expected) = match selector % 4 {
+                0 => (
+                    TableData::of(&table::STATE_LOW).checksum(),
+                    table::STATE_LOW_CRC32,
+                ),
+                1 => (
+                    TableData::of(&table::STATE_HIGH).checksum(),
+                    table::STATE_HIGH_CRC32,
+                ),
+                2 => (
+                    TableData::of(&table::TEMPERATURE_LOW).checksum(),
+                    table::TEMPERATURE_LOW_CRC32,
+                ),
+                _ => (
+                    TableData::of(&table::TEMPERATURE_HIGH).checksum(),
+                    table::TEMPERATURE_HIGH_CRC32,
+                ),
+            };
+            if computed == expected {
+                Ok(())
+            } else {
+                Err(format!(
+                    "table {} CRC {computed:#x}, generated {expected:#x}",
+                    selector % 4
+                ))
+            }
+        }
+        other => Err(format!("unknown kernel function {other}")),
+    }
+}
