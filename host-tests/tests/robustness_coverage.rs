@@ -5,7 +5,9 @@
 //! - listed in `robustness::CHECKED_FUNCTIONS`, which the property tests
 //!   and the fuzz target sweep (an unlisted name makes `check` fail);
 //! - called, by name, in the shared checker (host-tests/src/robustness.rs)
-//!   and in the no-panic image (tools/no-panic-check/src/main.rs).
+//!   and in the no-panic image (tools/no-panic-check/src/main.rs);
+//! - reached by the fuzz target, which picks from `CHECKED_FUNCTIONS` every
+//!   function that reads an input (checked below that it still does).
 //!
 //! A listed name that is no longer public in the kernel fails too.
 
@@ -181,4 +183,14 @@ fn every_checked_function_is_called_by_the_checker_and_the_no_panic_image() {
         });
         assert!(known, "robustness::check does not know {name}");
     }
+}
+
+#[test]
+fn the_fuzz_target_sweeps_the_checked_functions() {
+    let target =
+        fs::read_to_string(repository().join("kernel/fuzz/fuzz_targets/robustness.rs")).unwrap();
+    assert!(
+        target.contains("CHECKED_FUNCTIONS") && target.contains("check(name, a, b, selector)"),
+        "the fuzz target no longer picks from robustness::CHECKED_FUNCTIONS through check()"
+    );
 }

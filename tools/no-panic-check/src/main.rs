@@ -15,16 +15,18 @@
 use core::ptr::{addr_of, addr_of_mut, read_volatile, write_volatile};
 
 use vapora_kernel::accuracy::{accuracy_at_saturation_temperature_k, SaturationAccuracy};
-use vapora_kernel::integrity::{check_checksums, check_spot_points, self_test, TableData, TableSet};
+use vapora_kernel::integrity::{
+    check_checksums, check_spot_points, self_test, TableData, TableSet,
+};
 use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
 use vapora_kernel::quality::{
     phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
     phase_from_temperature_enthalpy, phase_from_temperature_entropy, Phase,
 };
 use vapora_kernel::saturation::{
-    saturated_property_at_pressure, saturated_property_at_temperature,
-    saturated_state_at_pressure, saturated_state_at_temperature, saturation_pressure,
-    saturation_temperature, PhaseProperties, SaturatedProperty, SaturatedState,
+    saturated_property_at_pressure, saturated_property_at_temperature, saturated_state_at_pressure,
+    saturated_state_at_temperature, saturation_pressure, saturation_temperature, PhaseProperties,
+    SaturatedProperty, SaturatedState,
 };
 use vapora_kernel::spline::{cubic, UniformCubicTable};
 use vapora_kernel::tables::saturation as table;
