@@ -2,7 +2,7 @@
 // Do not edit by hand. Regenerate with:
 //   cargo run -p vapora-tables --features generator --bin vapora-generate -- --output kernel/src/tables/saturation.rs
 // Settings: temperature_min_k=273.16 temperature_max_k=647.096 state_intervals_low=48 state_intervals_high=48 temperature_intervals_low=40 temperature_intervals_high=16 samples_per_interval=12 measurement_points_per_interval=64 critical_margin_k=0.01
-// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0xc812d842
+// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0x4af5da63
 //! The generated saturation tables: four uniform cubic-spline tables and
 //! the constants that define their variables, produced by `vapora-generate`
 //! from the IAPWS-IF97 formulation in f64. Never edit by hand.
@@ -1483,6 +1483,8 @@ pub static TEMPERATURE_HIGH: UniformCubicTable<1> = UniformCubicTable {
 pub const TEMPERATURE_HIGH_CRC32: u32 = 0x431b3743;
 
 /// Accuracy bound for saturation temperatures below Tc − 1 K (generator's measurement).
+///
+/// Measured at 8930 points.
 pub const ACCURACY_BELOW_NEAR_CRITICAL: SaturationAccuracy = SaturationAccuracy {
     temperature_k: 5.3e-4, // measured maximum 2.641e-4
     pressure_relative: 3.8e-6, // measured maximum 1.890e-6
@@ -1498,6 +1500,8 @@ pub const ACCURACY_BELOW_NEAR_CRITICAL: SaturationAccuracy = SaturationAccuracy 
 };
 
 /// Accuracy bound from Tc − 1 K to Tc − 0.01 K (generator's measurement).
+///
+/// Measured at 779 points.
 pub const ACCURACY_NEAR_CRITICAL: SaturationAccuracy = SaturationAccuracy {
     temperature_k: 6.2e-5, // measured maximum 3.069e-5
     pressure_relative: 3.7e-6, // measured maximum 1.810e-6

@@ -188,6 +188,8 @@ pub struct Measured {
     pub below_near_critical: ZoneMaxima,
     /// From Tc − 1 K to Tc − `critical_margin_k`.
     pub near_critical: ZoneMaxima,
+    /// Points measured in each zone (a zone outside the envelope has none).
+    pub points: [usize; 2],
 }
 
 /// Upper end of the first zone: Tc − 1 K.
@@ -213,12 +215,13 @@ pub fn measure<S: SaturationSource + ?Sized>(
         let r = source
             .saturated_sample(t_ref)
             .map_err(|message| GenerateError::Source { at: t_ref, message })?;
-        let zone = if t_ref < NEAR_CRITICAL_START_K {
-            &mut out.below_near_critical
+        if t_ref < NEAR_CRITICAL_START_K {
+            out.below_near_critical.update(k, t_ref, &r);
+            out.points[0] += 1;
         } else {
-            &mut out.near_critical
-        };
-        zone.update(k, t_ref, &r);
+            out.near_critical.update(k, t_ref, &r);
+            out.points[1] += 1;
+        }
         Ok(())
     };
     // Temperature inputs: uniform in T below 623.15 K, uniform in τ above.
