@@ -12,7 +12,8 @@ fn main() {
         "thumbv7em-none-eabihf" | "thumbv7em-none-eabi" => "mps2-an386",
         other => panic!("no board for target {other:?}: add one under boards/ and here"),
     };
-    let manifest = PathBuf::from(env::var("CARGO_MANIFEST_DIR").expect("cargo sets CARGO_MANIFEST_DIR"));
+    let manifest =
+        PathBuf::from(env::var("CARGO_MANIFEST_DIR").expect("cargo sets CARGO_MANIFEST_DIR"));
     let source = manifest.join("boards").join(board).join("memory.x");
     let out = PathBuf::from(env::var("OUT_DIR").expect("cargo sets OUT_DIR"));
     fs::copy(&source, out.join("memory.x")).expect("copy memory.x into OUT_DIR");

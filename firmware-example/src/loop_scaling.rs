@@ -69,8 +69,8 @@ impl LoopRange {
         if milliamps > OVER_RANGE_LIMIT_MILLIAMPS {
             return Err(LoopFault::OverRange { milliamps });
         }
-        // Written so that NaN fails the check.
-        if !(milliamps >= UNDER_RANGE_LIMIT_MILLIAMPS) {
+        // NaN must fail the check too, hence the explicit test.
+        if milliamps.is_nan() || milliamps < UNDER_RANGE_LIMIT_MILLIAMPS {
             return Err(LoopFault::UnderRange { milliamps });
         }
         let span = self.upper_range_value - self.lower_range_value;

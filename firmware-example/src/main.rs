@@ -68,7 +68,11 @@ fn main() -> ! {
         "begin firmware=steam-header-monitor board={} scans={} kernel={}",
         env!("VAPORA_BOARD"),
         SCANS.len(),
-        if KERNEL_WIRED { "wired" } else { "not-yet-wired" }
+        if KERNEL_WIRED {
+            "wired"
+        } else {
+            "not-yet-wired"
+        }
     );
     if !KERNEL_WIRED {
         hprintln!("note kernel not yet wired: no steam figures are computed");
@@ -127,9 +131,14 @@ fn main() -> ! {
             }
 
             // Self-check against the faults the scenario injected.
-            let expected = SCANS.get(raw.index).map_or((0, 0), |s| {
-                (s.expected_faulted, s.expected_lost)
-            });
+            let mut expected = SCANS
+                .get(raw.index)
+                .map_or((0, 0), |s| (s.expected_faulted, s.expected_lost));
+            if cfg!(feature = "inject-check-failure") && raw.index == 0 {
+                // Proves the harness sees a failing firmware: scan 0 is
+                // healthy, so expecting a fault on it must fail the run.
+                expected.0 |= 1;
+            }
             let faulted = (flags & 0xFF) as u8;
             let lost = (flags >> 8 & 0x1F) as u8;
             if (faulted, lost) != expected {
@@ -209,7 +218,8 @@ fn main() -> ! {
             Opt(milliamps)
         );
     }
-    let pass = check_failures == 0 && queue_overruns == 0 && events_dropped == 0 && steam_errors == 0;
+    let pass =
+        check_failures == 0 && queue_overruns == 0 && events_dropped == 0 && steam_errors == 0;
     hprintln!(
         "summary scans={} events={} events_dropped={} queue_overruns={} check_failures={} steam_errors={}",
         SCANS.len(),

@@ -61,7 +61,10 @@ fn run(m: &Measured) -> bool {
         checksum
     );
     if max_stack >= PAINT_BYTES {
-        hprintln!("error name={} stack reached the end of the painted region", m.name);
+        hprintln!(
+            "error name={} stack reached the end of the painted region",
+            m.name
+        );
         return false;
     }
     true
