@@ -100,20 +100,35 @@ impl fmt::Display for FormulationError {
         match *self {
             Self::NotFinite => write!(f, "input is NaN or infinite"),
             Self::PressureOutOfRange { pressure_pa } => {
-                write!(f, "pressure {pressure_pa} Pa is outside the range of this equation")
+                write!(
+                    f,
+                    "pressure {pressure_pa} Pa is outside the range of this equation"
+                )
             }
             Self::TemperatureOutOfRange { temperature_k } => {
-                write!(f, "temperature {temperature_k} K is outside the range of this equation")
+                write!(
+                    f,
+                    "temperature {temperature_k} K is outside the range of this equation"
+                )
             }
             Self::DensityOutOfRange { density_kg_m3 } => {
-                write!(f, "density {density_kg_m3} kg/m3 is outside the range of this equation")
+                write!(
+                    f,
+                    "density {density_kg_m3} kg/m3 is outside the range of this equation"
+                )
             }
-            Self::OutsideFormulation { pressure_pa, temperature_k } => write!(
+            Self::OutsideFormulation {
+                pressure_pa,
+                temperature_k,
+            } => write!(
                 f,
                 "point p = {pressure_pa} Pa, T = {temperature_k} K lies outside IAPWS-IF97"
             ),
             Self::PropertyOutOfRange => {
-                write!(f, "enthalpy or entropy is outside the range reachable at this pressure")
+                write!(
+                    f,
+                    "enthalpy or entropy is outside the range reachable at this pressure"
+                )
             }
             Self::NoConvergence => write!(f, "iteration did not converge"),
         }
@@ -128,5 +143,74 @@ pub(crate) fn require_finite(values: &[f64]) -> Result<(), FormulationError> {
         Ok(())
     } else {
         Err(FormulationError::NotFinite)
+    }
+}
+
+/// Returns `Err(PressureOutOfRange)` unless every property is finite.
+///
+/// The Gibbs regions accept any p > 0, but below about 1e-300 Pa the
+/// specific volume RT/p overflows f64; such a pressure is reported as out of
+/// range rather than returned as an infinite or NaN property.
+pub(crate) fn require_finite_properties(props: Properties) -> Result<Properties, FormulationError> {
+    let values = [
+        props.density_kg_m3,
+        props.specific_volume_m3_kg,
+        props.enthalpy_j_kg,
+        props.internal_energy_j_kg,
+        props.entropy_j_kgk,
+        props.cp_j_kgk,
+        props.cv_j_kgk,
+        props.speed_of_sound_m_s,
+        props.isentropic_exponent,
+    ];
+    if values.iter().all(|v| v.is_finite()) && props.density_kg_m3 > 0.0 {
+        Ok(props)
+    } else {
+        Err(FormulationError::PressureOutOfRange {
+            pressure_pa: props.pressure_pa,
+        })
+    }
+}
+
+/// `x` raised to an integer power by repeated squaring.
+///
+/// The region equations are sums of integer powers (exponents −41 … 58);
+/// squaring keeps them exact to a few ulp without needing `powi`, which
+/// `core` does not offer on every toolchain this crate supports.
+pub(crate) fn powi(x: f64, n: i32) -> f64 {
+    let mut base = x;
+    let mut exponent = n.unsigned_abs();
+    let mut result = 1.0;
+    while exponent > 0 {
+        if exponent & 1 == 1 {
+            result *= base;
+        }
+        base *= base;
+        exponent >>= 1;
+    }
+    if n < 0 {
+        1.0 / result
+    } else {
+        result
+    }
+}
+
+/// `k · x^(k−1)`, the derivative of `x^k`, taken as exactly 0 when `k` = 0
+/// (so that a base of 0 never produces `0 · ∞`).
+pub(crate) fn dpowi(x: f64, k: i32) -> f64 {
+    if k == 0 {
+        0.0
+    } else {
+        f64::from(k) * powi(x, k - 1)
+    }
+}
+
+/// `k (k−1) · x^(k−2)`, the second derivative of `x^k`, taken as exactly 0
+/// when `k` is 0 or 1.
+pub(crate) fn d2powi(x: f64, k: i32) -> f64 {
+    if k == 0 || k == 1 {
+        0.0
+    } else {
+        f64::from(k) * f64::from(k - 1) * powi(x, k - 2)
     }
 }

@@ -9,3 +9,11 @@ mod common;
 pub use common::*;
 
 pub mod region4;
+
+// regions 1, 2, 5, B23 and selection
+pub mod b23;
+mod gibbs;
+pub mod region1;
+pub mod region2;
+pub mod region5;
+pub mod regions;

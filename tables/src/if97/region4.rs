@@ -103,7 +103,11 @@ mod tests {
     // IAPWS R7-97(2012), Table 35: psat at 300, 500, 600 K (MPa).
     #[test]
     fn table_35() {
-        for (t, p_mpa) in [(300.0, 0.353658941e-2), (500.0, 0.263889776e1), (600.0, 0.123443146e2)] {
+        for (t, p_mpa) in [
+            (300.0, 0.353658941e-2),
+            (500.0, 0.263889776e1),
+            (600.0, 0.123443146e2),
+        ] {
             let p = saturation_pressure_pa(t).unwrap() / 1e6;
             assert!(printed_digits_match(p, p_mpa), "T={t}: {p} vs {p_mpa}");
         }
@@ -112,7 +116,11 @@ mod tests {
     // IAPWS R7-97(2012), Table 36: Tsat at 0.1, 1, 10 MPa (K).
     #[test]
     fn table_36() {
-        for (p_mpa, t_ref) in [(0.1, 0.372755919e3), (1.0, 0.453035632e3), (10.0, 0.584149488e3)] {
+        for (p_mpa, t_ref) in [
+            (0.1, 0.372755919e3),
+            (1.0, 0.453035632e3),
+            (10.0, 0.584149488e3),
+        ] {
             let t = saturation_temperature_k(p_mpa * 1e6).unwrap();
             assert!(printed_digits_match(t, t_ref), "p={p_mpa}: {t} vs {t_ref}");
         }
