@@ -28,26 +28,34 @@ pub struct SteamFigures {
     /// Header temperature minus saturation temperature, K (negative values
     /// mean the temperature reads below saturation: wet steam).
     pub superheat_margin_k: Option<f32>,
-    /// Superheat margin below the plant's alarm setting.
+    /// Superheat margin below the plant's alarm setting
+    /// ([`crate::scenario::SUPERHEAT_ALARM_MARGIN_K`]).
     pub superheat_low: bool,
     /// Density of saturated vapour at the header pressure, kg/m³.
     pub saturated_vapour_density_kg_m3: f32,
     /// Specific enthalpy of saturated vapour at the header pressure, J/kg.
     pub saturated_vapour_enthalpy_j_kg: f32,
     /// Specific enthalpy used for the energy flow, J/kg: wet steam at the
-    /// probe's dryness fraction when the header is at saturation, saturated
-    /// vapour otherwise (a lower bound for superheated steam).
+    /// probe's dryness fraction when the header is at saturation (margin
+    /// below [`crate::scenario::SATURATED_BAND_K`]), saturated vapour
+    /// otherwise (a lower bound for superheated steam).
     pub steam_enthalpy_j_kg: f32,
     /// Energy flow carried by the steam (mass flow × enthalpy), kW.
     pub energy_flow_kw: Option<f32>,
 }
 
 /// Why a scan has no steam figures.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, Copy, PartialEq)]
 #[non_exhaustive]
 pub enum ComputeError {
     /// The kernel's saturation functions are not in this build yet.
     KernelNotWired,
+    /// Gauge plus ambient is not a usable absolute pressure (negative or
+    /// not finite), Pa.
+    InvalidAbsolutePressure {
+        /// The offending sum, Pa.
+        pressure_pa: f32,
+    },
 }
 
 /// Whether this build computes steam figures with the kernel.
@@ -56,11 +64,18 @@ pub const KERNEL_WIRED: bool = false;
 /// Absolute pressure from a gauge reading and the ambient (barometric)
 /// pressure, Pa.
 ///
-/// When the kernel lands this becomes the kernel's checked constructor
-/// (`units::AbsolutePressure` from gauge plus ambient), which also rejects
-/// negative or non-finite results.
-pub fn absolute_pressure_pa(gauge_pa: f32, ambient_pa: f32) -> f32 {
-    gauge_pa + ambient_pa
+/// # Errors
+/// [`ComputeError::InvalidAbsolutePressure`] if the sum is negative or not
+/// finite (a vacuum reading deeper than the ambient allows).
+pub fn absolute_pressure_pa(gauge_pa: f32, ambient_pa: f32) -> Result<f32, ComputeError> {
+    // When the kernel lands: units::AbsolutePressure::from_gauge, which
+    // makes the same checks.
+    let pressure_pa = gauge_pa + ambient_pa;
+    if pressure_pa.is_finite() && pressure_pa >= 0.0 {
+        Ok(pressure_pa)
+    } else {
+        Err(ComputeError::InvalidAbsolutePressure { pressure_pa })
+    }
 }
 
 /// Saturation temperature, superheat margin and alarm, saturated-vapour
@@ -70,13 +85,11 @@ pub fn absolute_pressure_pa(gauge_pa: f32, ambient_pa: f32) -> f32 {
 /// [`ComputeError::KernelNotWired`] until the kernel is wired in; then the
 /// kernel's own errors (pressure outside its range, dryness outside 0..=1).
 pub fn steam_figures(inputs: &ScanInputs) -> Result<SteamFigures, ComputeError> {
-    // Wiring the kernel in: replace this body with calls to
-    //   saturation_temperature(p), saturated_state_at_pressure(p),
-    //   wet_steam_at_pressure(p, x)
-    // on `units::AbsolutePressure` built from `inputs.absolute_pressure_pa`,
-    // map the kernel's error into a `ComputeError::Kernel(..)` variant,
-    // set `KERNEL_WIRED = true`, and add the kernel functions to
-    // `crate::measured::MEASURED`. See README.md, "Wiring the kernel in".
+    // Wiring the kernel in: replace this body with
+    // saturated_state_at_pressure(p) and wet_steam_at_pressure(p, x) on a
+    // units::AbsolutePressure built from `inputs.absolute_pressure_pa`, map
+    // the kernel's errors into ComputeError variants and set KERNEL_WIRED.
+    // See README.md, "Wiring the kernel in".
     let _ = inputs;
     Err(ComputeError::KernelNotWired)
 }

@@ -155,18 +155,33 @@ fn main() -> ! {
                 _ => None,
             };
             let figures = absolute.map(|p| {
-                compute::steam_figures(&ScanInputs {
-                    absolute_pressure_pa: p,
-                    header_temperature_c: temperature,
-                    mass_flow_kg_s: flow,
-                    dryness_fraction: dryness,
+                p.and_then(|p| {
+                    compute::steam_figures(&ScanInputs {
+                        absolute_pressure_pa: p,
+                        header_temperature_c: temperature,
+                        mass_flow_kg_s: flow,
+                        dryness_fraction: dryness,
+                    })
                 })
             });
+            let absolute = absolute.and_then(Result::ok);
             let steam = match figures {
                 None => "no-pressure",
                 Some(Ok(f)) => {
                     if f.superheat_low {
                         flags |= report::SUPERHEAT_LOW;
+                    }
+                    let expected = SCANS
+                        .get(raw.index)
+                        .is_some_and(|s| s.expected_superheat_low);
+                    if f.superheat_low != expected {
+                        check_failures += 1;
+                        hprintln!(
+                            "check scan={} superheat_low={} expected={}",
+                            raw.index,
+                            f.superheat_low,
+                            expected
+                        );
                     }
                     "ok"
                 }

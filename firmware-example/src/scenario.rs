@@ -66,6 +66,11 @@ pub const RANGE_DRYNESS: LoopRange = LoopRange {
 /// (the plant's own setting, invented: the pasteurisers want dry steam).
 pub const SUPERHEAT_ALARM_MARGIN_K: f32 = 5.0;
 
+/// A header temperature less than this above saturation is taken as
+/// saturated steam, and the probe's dryness fraction is used, K (the
+/// plant's setting, invented: about the temperature loop's accuracy).
+pub const SATURATED_BAND_K: f32 = 1.0;
+
 /// One scan of the field as the input card sees it.
 #[derive(Debug, Clone, Copy)]
 pub struct FieldScan {
@@ -79,6 +84,13 @@ pub struct FieldScan {
     /// Bit `c` set: channel `c` must have no usable value this scan
     /// (faulted longer than the hold limit).
     pub expected_lost: u8,
+    /// The low-superheat alarm must be raised this scan (checked on scans
+    /// that have steam figures). Worked out by hand when the scenario was
+    /// written, from IAPWS R7-97(2012) Table 36 (Tsat = 453.035632 K at
+    /// 1 MPa) and a slope of about 23 kPa/K near 180 °C (from memory): the
+    /// healthy header runs about 9 K above saturation, the tripped one at
+    /// saturation.
+    pub expected_superheat_low: bool,
 }
 
 const fn bit(channel: u8) -> u8 {
@@ -93,6 +105,24 @@ const fn healthy(p: f32, amb: f32, t: f32, flow: f32) -> FieldScan {
         corrupt_frame_on: None,
         expected_faulted: 0,
         expected_lost: 0,
+        expected_superheat_low: false,
+    }
+}
+
+/// A scan with faults injected on the channels in `faulted` (their
+/// currents are already in `loop_milliamps`).
+const fn faulted(
+    loop_milliamps: [f32; 5],
+    expected_faulted: u8,
+    expected_lost: u8,
+    superheat_low: bool,
+) -> FieldScan {
+    FieldScan {
+        loop_milliamps,
+        corrupt_frame_on: None,
+        expected_faulted,
+        expected_lost,
+        expected_superheat_low: superheat_low,
     }
 }
 
@@ -103,29 +133,29 @@ pub const SCANS: [FieldScan; 18] = [
     healthy(13.31, 14.18, 14.16, 13.05),
     // Scans 3–4: the pressure transmitter's loop opens (a loose terminal):
     // about 1.2 mA from the card's leakage path. Held, flagged.
-    FieldScan {
-        loop_milliamps: [1.2, 14.18, 14.15, 13.02, 20.0],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_HEADER_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [1.2, 14.18, 14.15, 13.00, 20.0],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_HEADER_PRESSURE),
-        expected_lost: 0,
-    },
+    faulted(
+        [1.2, 14.18, 14.15, 13.02, 20.0],
+        bit(CH_HEADER_PRESSURE),
+        0,
+        false,
+    ),
+    faulted(
+        [1.2, 14.18, 14.15, 13.00, 20.0],
+        bit(CH_HEADER_PRESSURE),
+        0,
+        false,
+    ),
     healthy(13.28, 14.18, 14.14, 12.97),
     // Scan 6: the temperature transmitter drives upscale (22 mA) on a
     // sensor fault. Over-range, held.
-    FieldScan {
-        loop_milliamps: [13.27, 14.18, 22.0, 12.95, 20.0],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_HEADER_TEMPERATURE),
-        expected_lost: 0,
-    },
-    // Scan 7: still inside the tolerated band above 20 mA is fine (20.3 mA
-    // on the flow meter: a flow peak just past its range).
+    faulted(
+        [13.27, 14.18, 22.0, 12.95, 20.0],
+        bit(CH_HEADER_TEMPERATURE),
+        0,
+        false,
+    ),
+    // Scan 7: 20.3 mA on the flow meter, a flow peak just past its range,
+    // is still inside the tolerated band above 20 mA: not a fault.
     healthy(13.25, 14.18, 14.13, 20.3),
     // Scan 8: a corrupted SPI frame on the flow channel.
     FieldScan {
@@ -133,53 +163,56 @@ pub const SCANS: [FieldScan; 18] = [
         corrupt_frame_on: Some(CH_MASS_FLOW),
         expected_faulted: bit(CH_MASS_FLOW),
         expected_lost: 0,
+        expected_superheat_low: false,
     },
-    // Scans 9–16: the superheater trips; the header falls to saturation
-    // and the probe sees wet steam (0.96 → 16.80 mA). The barometer dies
-    // at scan 10 (3.2 mA) and stays dead: held for five scans, then lost.
-    healthy(13.10, 14.18, 13.88, 12.70),
-    FieldScan {
-        loop_milliamps: [13.02, 3.2, 13.71, 12.60, 16.80],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [12.98, 3.2, 13.66, 12.55, 16.80],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [12.95, 3.2, 13.64, 12.52, 16.72],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [12.95, 3.2, 13.64, 12.50, 16.70],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [12.96, 3.2, 13.64, 12.51, 16.72],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: 0,
-    },
-    FieldScan {
-        loop_milliamps: [12.97, 3.2, 13.65, 12.53, 16.76],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: bit(CH_AMBIENT_PRESSURE),
-    },
-    FieldScan {
-        loop_milliamps: [12.99, 3.2, 13.66, 12.55, 16.80],
-        corrupt_frame_on: None,
-        expected_faulted: bit(CH_AMBIENT_PRESSURE),
-        expected_lost: bit(CH_AMBIENT_PRESSURE),
-    },
+    // Scan 9: the superheater trips; 183 °C (13.76 mA) is about 3 K of
+    // superheat: alarm.
+    faulted([13.10, 14.18, 13.76, 12.70, 20.0], 0, 0, true),
+    // Scans 10–16: the header at saturation, wet steam at about 0.96
+    // (16.80 mA). The barometer dies at scan 10 (3.2 mA) and stays dead:
+    // held for five scans, then lost (no absolute pressure, no figures).
+    faulted(
+        [13.02, 3.2, 13.59, 12.60, 16.80],
+        bit(CH_AMBIENT_PRESSURE),
+        0,
+        true,
+    ),
+    faulted(
+        [12.98, 3.2, 13.59, 12.55, 16.80],
+        bit(CH_AMBIENT_PRESSURE),
+        0,
+        true,
+    ),
+    faulted(
+        [12.95, 3.2, 13.58, 12.52, 16.72],
+        bit(CH_AMBIENT_PRESSURE),
+        0,
+        true,
+    ),
+    faulted(
+        [12.95, 3.2, 13.58, 12.50, 16.70],
+        bit(CH_AMBIENT_PRESSURE),
+        0,
+        true,
+    ),
+    faulted(
+        [12.96, 3.2, 13.58, 12.51, 16.72],
+        bit(CH_AMBIENT_PRESSURE),
+        0,
+        true,
+    ),
+    faulted(
+        [12.97, 3.2, 13.58, 12.53, 16.76],
+        bit(CH_AMBIENT_PRESSURE),
+        bit(CH_AMBIENT_PRESSURE),
+        true,
+    ),
+    faulted(
+        [12.99, 3.2, 13.59, 12.55, 16.80],
+        bit(CH_AMBIENT_PRESSURE),
+        bit(CH_AMBIENT_PRESSURE),
+        true,
+    ),
     // Scan 17: barometer replaced, superheater back.
     healthy(13.18, 14.17, 14.10, 12.90),
 ];
