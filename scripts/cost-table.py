@@ -2,7 +2,7 @@
 """Turns one run of the firmware cost bench into the cost tables.
 
     cost-table.py insns  STDOUT PLUGIN_LOG OUT_CSV
-    cost-table.py size   NM_OUTPUT SIZE_OUTPUT OUT_CSV
+    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL OUT_CSV
 
 insns: STDOUT is the bench's semihosting output (`function name=N calls=C`
 lines, in the order of the marks, then `stack name=N bytes=B ...`);
@@ -12,9 +12,16 @@ Marks come in pairs around each call; the first function is the calibration
 Writes `function,calls,min_insns,median_insns,max_insns,stack_bytes`.
 
 size: NM_OUTPUT is `llvm-nm -S -C --defined-only ELF`, SIZE_OUTPUT is
-`llvm-size -A ELF`. Writes `component,code_bytes,table_bytes,static_ram_bytes`
-with one row per crate of interest, one per bench wrapper, and the whole
-image (flash = vector table + text + rodata + data; RAM = data + bss).
+`llvm-size -A ELF`, SIZE_OUTPUT_WITHOUT_KERNEL the same for the bench built
+without the kernel's functions. Writes
+`component,code_bytes,table_bytes,static_ram_bytes`: `kernel` (the
+difference between the two images: what the kernel's functions add, code,
+tables and the library code they pull in), both images (code = vector table
++ .text; tables = .rodata + .data, the flash that holds constants and
+initial values; RAM = .data + .bss), and per-symbol detail rows for the
+crates of interest and the bench wrappers (with LTO, a function inlined into
+a wrapper counts in the wrapper's row, and anonymous constants such as
+table data count in no crate's row: use the `kernel` row).
 """
 import re
 import statistics
@@ -75,7 +82,7 @@ def insns(stdout_path, log_path, out_path):
 CODE, TABLES, RAM = set("tT"), set("rR"), set("dDbB")
 
 
-def size(nm_path, size_path, out_path):
+def size(nm_path, size_path, size_without_kernel_path, out_path):
     rows = {}
 
     def add(component, kind, nbytes):
@@ -102,28 +109,38 @@ def size(nm_path, size_path, out_path):
                           name.strip())
             if m:
                 add(f"wrapper:{m.group(1)}", slot, nbytes)
+    full = image(size_path)
+    without = image(size_without_kernel_path)
+    rows["image"] = full
+    rows["image-without-kernel"] = without
+    rows["kernel"] = [a - b for a, b in zip(full, without)]
+    for name in ("crate:vapora_kernel", "crate:libm", "crate:compiler_builtins"):
+        rows.setdefault(name, [0, 0, 0])
+    order = lambda n: (0 if n == "kernel" else 2 if n.startswith("image") else 1, n)
+    with open(out_path, "w") as out:
+        out.write("component,code_bytes,table_bytes,static_ram_bytes\n")
+        for name in sorted(rows, key=order):
+            code, tables, ram = rows[name]
+            out.write(f"{name},{code},{tables},{ram}\n")
+
+
+def image(size_path):
+    """[code, tables, RAM] bytes of a linked image from `llvm-size -A`."""
     sections = {}
     with open(size_path) as f:
         for line in f:
             parts = line.split()
             if len(parts) == 3 and parts[0].startswith(".") and parts[1].isdigit():
                 sections[parts[0]] = int(parts[1])
-    s = lambda name: sections.get(name, 0)
     if ".text" not in sections:
-        fail("no .text section in the size output")
+        fail(f"no .text section in {size_path}")
+    s = lambda name: sections.get(name, 0)
     # .data occupies flash (its initial values) and RAM.
-    rows["image"] = [s(".vector_table") + s(".text"), s(".rodata") + s(".data"),
-                     s(".data") + s(".bss")]
-    for name in ("crate:vapora_kernel", "crate:libm", "crate:compiler_builtins"):
-        rows.setdefault(name, [0, 0, 0])
-    with open(out_path, "w") as out:
-        out.write("component,code_bytes,table_bytes,static_ram_bytes\n")
-        for name in sorted(rows, key=lambda n: (n == "image", n)):
-            code, tables, ram = rows[name]
-            out.write(f"{name},{code},{tables},{ram}\n")
+    return [s(".vector_table") + s(".text"), s(".rodata") + s(".data"), s(".data") + s(".bss")]
 
 
 if __name__ == "__main__":
-    if len(sys.argv) != 5 or sys.argv[1] not in ("insns", "size"):
+    arguments = {"insns": 3, "size": 4}
+    if len(sys.argv) < 2 or arguments.get(sys.argv[1]) != len(sys.argv) - 2:
         fail(__doc__)
     {"insns": insns, "size": size}[sys.argv[1]](*sys.argv[2:])
