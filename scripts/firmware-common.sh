@@ -14,7 +14,9 @@ export VAPORA_QEMU
 # Host-side settings must not leak into the thumb builds: RUSTFLAGS would
 # replace the firmware's link flags (-Tlink.x), and a host CARGO_TARGET_DIR
 # would mix the two builds.
+# VAPORA_HOST_TARGET_DIR keeps the host one for host-side steps.
 unset RUSTFLAGS CARGO_ENCODED_RUSTFLAGS CARGO_BUILD_TARGET
+VAPORA_HOST_TARGET_DIR=${CARGO_TARGET_DIR:-$PWD/target}
 export CARGO_TARGET_DIR=$VAPORA_FIRMWARE_TARGET_DIR
 
 # fw_cargo SUBCOMMAND ARGS...: cargo in firmware-example/ (so its
