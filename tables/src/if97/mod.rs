@@ -17,3 +17,11 @@ pub mod region1;
 pub mod region2;
 pub mod region5;
 pub mod regions;
+
+// region 3, saturation line, viscosity, inversions
+pub mod backward;
+pub mod inverse;
+pub mod pt;
+pub mod region3;
+pub mod saturation;
+pub mod viscosity;
