@@ -2,4 +2,5 @@
 #![forbid(unsafe_code)]
 #![deny(missing_docs)]
 
+pub mod accuracy;
 pub mod tolerance;

@@ -1,4 +1,18 @@
-//! vapora kernel (work in progress: the tables arrive with the saturation issue).
+#![doc = include_str!("../README.md")]
 #![no_std]
 #![forbid(unsafe_code)]
 #![deny(missing_docs)]
+
+pub mod accuracy;
+pub mod error;
+pub mod mixture;
+pub mod quality;
+pub mod saturation;
+pub mod spline;
+pub mod units;
+
+/// The generated tables (written by `vapora-generate`, never edited by hand).
+pub mod tables {
+    #[rustfmt::skip]
+    pub mod saturation;
+}
