@@ -5,9 +5,10 @@
 //! # How a call works
 //! A pressure needs no logarithm and no square root: the bit pattern of the
 //! f32 p (below p_sat(623.15 K) = 16.53 MPa) or of pc − p (above) numbers
-//! the interval of a table with eight intervals per octave of its input;
-//! one look-up gives the saturation temperature (or τ = √(Tc − T) near the
-//! critical point), and one more look-up gives the interval of the state
+//! the interval of a table with a fixed number of intervals per octave of
+//! its input (eight with the default tables); one look-up gives the
+//! saturation temperature (or τ = √(Tc − T) near the critical point), and
+//! one more look-up gives the interval of the state
 //! table that every property of both phases shares. A temperature goes
 //! straight to the state table (through τ above 623.15 K) and needs one
 //! exponential for the pressure. There is no iteration and no search: the

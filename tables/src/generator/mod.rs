@@ -3,26 +3,35 @@
 //!
 //! It samples a [`SaturationSource`] (the f64 IAPWS-IF97 formulation in
 //! normal use), fits least-squares cubic splines on uniform knots in
-//! transformed variables ([`fit`]), measures the error of the f32 tables
+//! transformed variables for the state tables ([`fit`]) and cubic Hermite
+//! interpolants on the f32 bit pattern for the temperature tables
+//! ([`OctaveTable`]), measures the error of the f32 tables
 //! evaluated exactly as the kernel evaluates them ([`measure`]), and emits
 //! the Rust source of `kernel/src/tables.rs` ([`emit`]).
 //!
 //! # The table layout (the contract with the kernel)
-//! Four uniform tables, each a list of intervals holding one cubic per
-//! tabulated quantity in the local variable t ∈ [0, 1]:
+//! Four tables, each a list of intervals holding one cubic per tabulated
+//! quantity in the local variable t ∈ [0, 1]. The state tables are uniform
+//! in their variable; the temperature tables are indexed on the f32 bit
+//! pattern of theirs (2^`temperature_octave_bits_*` equal intervals per
+//! octave, knots on the powers of two: a logarithmic spacing that costs no
+//! logarithm):
 //!
 //! | table | independent variable | range | quantities |
 //! |---|---|---|---|
 //! | state, low | T, K | T_min … 623.15 K | ln p, ρ', ρ''/p, h', h'', s', s'', 1/cp', 1/cp'' |
 //! | state, high | τ = √(Tc − T), √K | 0 … √(Tc − 623.15 K) | same |
-//! | temperature, low | ln p, ln Pa | ln p_min … ln p_sat(623.15 K) | T |
-//! | temperature, high | σ = √(pc − p), √Pa | 0 … √(pc − p_sat(623.15 K)) | τ |
+//! | temperature, low | bit pattern of p, Pa | p_min … p_sat(623.15 K) | T |
+//! | temperature, high | bit pattern of q = pc − p, Pa | 2 Pa … pc − p_sat(623.15 K) | τ |
 //!
 //! Why these variables: along the saturation line of IF97's Region 3 (an
 //! analytic equation of state) the densities, enthalpies and entropies behave
 //! like a + b·√(Tc − T) near the critical point, so in τ they are smooth
-//! polynomials; pc − p is nearly proportional to Tc − T, so σ does the same
-//! for pressure inputs. ln p is nearly linear in T (Clausius–Clapeyron),
+//! polynomials. For pressure inputs pc − p is nearly proportional to Tc − T,
+//! so τ ≈ c·√q, which on one octave of q (a factor of two) is as smooth as
+//! √ on [1, 2]: the octave spacing resolves it down to the last pascals
+//! below pc without a square root. Below 16.53 MPa T(p) is smooth in ln p,
+//! which the octave spacing follows. ln p is nearly linear in T (Clausius–Clapeyron),
 //! ρ''/p is nearly 1/(R T) (ideal gas at low pressure) and 1/cp stays finite
 //! where cp diverges at the critical point. The break at 623.15 K is where
 //! the formulation hands over from Regions 1 and 2 to Region 3 and its
