@@ -77,7 +77,7 @@ fn temperature_tables_match_region_4_at_their_knots() {
     let mut worst: f64 = 0.0;
     for i in 0..low.intervals.len() {
         let p = knot(low, i);
-        if p < table::PRESSURE_MIN_PA || p >= table::BOUNDARY_PRESSURE_PA {
+        if !(table::PRESSURE_MIN_PA..table::BOUNDARY_PRESSURE_PA).contains(&p) {
             continue;
         }
         let reference = region4::saturation_temperature_k_unchecked(f64::from(p));
