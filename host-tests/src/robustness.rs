@@ -35,7 +35,9 @@
 //!
 //! Units: constructors that succeed hold exactly the value given (Pa, K) or
 //! its finite conversion; absolute pressures are ≥ 0 and temperatures > 0.
-//! Spline look-up (a low-level function that does not check its range):
+//! Octave look-up: any x gives an interval and 0 ≤ t < 1, and the cubics
+//! are finite for x inside the table.
+//! Uniform spline look-up (a low-level function that does not check its range):
 //! any x, NaN included, gives an interval and a t that is not NaN and
 //! ≥ 0; for x inside the table's range t ≤ 1 + 1e-3 and the cubics of the
 //! compiled tables are finite there. Outside the range t extrapolates
@@ -60,7 +62,7 @@ use vapora_kernel::saturation::{
     SaturatedProperty, SaturatedState, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K,
     TEMPERATURE_MIN_K,
 };
-use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::spline::{cubic, OctaveCubicTable, UniformCubicTable};
 use vapora_kernel::tables::saturation as table;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
@@ -136,12 +138,14 @@ pub const CHECKED_FUNCTIONS: &[&str] = &[
     "wet_steam_at_temperature",
     "accuracy_at_saturation_temperature_k",
     "UniformCubicTable::locate",
+    "OctaveCubicTable::locate",
     "cubic",
     "self_test",
     "check_checksums",
     "check_spot_points",
     "TableSet::compiled",
-    "TableData::of",
+    "TableData::of_uniform",
+    "TableData::of_octave",
     "TableData::checksum",
 ];
 
@@ -173,12 +177,14 @@ pub fn input_shape(function: &str) -> InputShape {
         "saturated_property_at_pressure" | "saturated_property_at_temperature" => {
             (true, false, PROPERTIES.len() as u32)
         }
-        "UniformCubicTable::locate" | "cubic" => (true, false, 4),
+        "UniformCubicTable::locate" | "OctaveCubicTable::locate" | "cubic" => (true, false, 4),
         // The integrity functions read no input at all.
         "self_test" | "check_checksums" | "check_spot_points" | "TableSet::compiled" => {
             (false, false, 1)
         }
-        "TableData::of" | "TableData::checksum" => (false, false, 4),
+        "TableData::of_uniform" | "TableData::of_octave" | "TableData::checksum" => {
+            (false, false, 4)
+        }
         _ => (true, false, 1),
     };
     InputShape { a, b, selectors }
@@ -467,6 +473,30 @@ fn check_locate<const P: usize>(
     Ok(())
 }
 
+/// Octave tables: any x gives an interval and 0 ≤ t < 1 (t is built from
+/// the low bits of x's pattern, so this holds for NaN and ∞ too); for x
+/// inside the table the cubics are finite.
+fn check_locate_octave<const P: usize>(
+    name: &str,
+    t: &OctaveCubicTable<P>,
+    x: f32,
+) -> Result<(), Violation> {
+    let Some((block, u)) = t.locate(x) else {
+        return Err(format!("{name}.locate({x:e}) found no interval"));
+    };
+    if !(0.0..1.0).contains(&u) {
+        return Err(format!("{name}.locate({x:e}) gave t = {u:e}"));
+    }
+    let first = f32::from_bits(t.first << t.shift);
+    let end = f32::from_bits((t.first + t.intervals.len() as u32) << t.shift);
+    if x >= first && x < end {
+        for (q, c) in block.iter().enumerate() {
+            finite(&format!("{name} quantity {q} at x = {x:e}"), cubic(c, u))?;
+        }
+    }
+    Ok(())
+}
+
 /// The named function on raw inputs `a`, `b` (f32 bit patterns already
 /// decoded) and a selector for enumerations (which saturated property,
 /// which table). `Err` says which result broke the property; an unknown
@@ -632,11 +662,13 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
         "accuracy_at_saturation_temperature_k" => {
             check_accuracy(accuracy_at_saturation_temperature_k(a))
         }
-        "UniformCubicTable::locate" | "cubic" => match selector % 4 {
+        "UniformCubicTable::locate" | "cubic" => match selector % 2 {
             0 => check_locate("STATE_LOW", &table::STATE_LOW, a),
-            1 => check_locate("STATE_HIGH", &table::STATE_HIGH, a),
-            2 => check_locate("TEMPERATURE_LOW", &table::TEMPERATURE_LOW, a),
-            _ => check_locate("TEMPERATURE_HIGH", &table::TEMPERATURE_HIGH, a),
+            _ => check_locate("STATE_HIGH", &table::STATE_HIGH, a),
+        },
+        "OctaveCubicTable::locate" => match selector % 2 {
+            0 => check_locate_octave("TEMPERATURE_LOW", &table::TEMPERATURE_LOW, a),
+            _ => check_locate_octave("TEMPERATURE_HIGH", &table::TEMPERATURE_HIGH, a),
         },
         // The integrity functions take no untrusted input; they must pass
         // on the compiled tables whatever the other inputs are.
@@ -648,22 +680,22 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
         "check_spot_points" => {
             integrity::check_spot_points().map_err(|e| format!("spot check failed: {e}"))
         }
-        "TableData::of" | "TableData::checksum" => {
+        "TableData::of_uniform" | "TableData::of_octave" | "TableData::checksum" => {
             let (computed, expected) = match selector % 4 {
                 0 => (
-                    TableData::of(&table::STATE_LOW).checksum(),
+                    TableData::of_uniform(&table::STATE_LOW).checksum(),
                     table::STATE_LOW_CRC32,
                 ),
                 1 => (
-                    TableData::of(&table::STATE_HIGH).checksum(),
+                    TableData::of_uniform(&table::STATE_HIGH).checksum(),
                     table::STATE_HIGH_CRC32,
                 ),
                 2 => (
-                    TableData::of(&table::TEMPERATURE_LOW).checksum(),
+                    TableData::of_octave(&table::TEMPERATURE_LOW).checksum(),
                     table::TEMPERATURE_LOW_CRC32,
                 ),
                 _ => (
-                    TableData::of(&table::TEMPERATURE_HIGH).checksum(),
+                    TableData::of_octave(&table::TEMPERATURE_HIGH).checksum(),
                     table::TEMPERATURE_HIGH_CRC32,
                 ),
             };

@@ -8,7 +8,6 @@ use std::thread;
 use vapora_kernel::integrity::{
     check_checksums, check_spot_points, self_test, IntegrityError, TableData, TableId, TableSet,
 };
-use vapora_kernel::spline::UniformCubicTable;
 use vapora_kernel::tables::saturation as table;
 
 #[test]
@@ -21,108 +20,115 @@ fn the_compiled_tables_pass_the_self_test() {
 /// The generated CRCs, recomputed here with the `crc` crate's table-driven
 /// implementation (the kernel's is bitwise) over the bytes the kernel's
 /// documentation names: the two must agree on layout and algorithm.
-fn independent_crc<const P: usize>(t: &UniformCubicTable<P>) -> u32 {
-    let mut bytes = Vec::new();
-    bytes.extend_from_slice(&t.start.to_le_bytes());
-    bytes.extend_from_slice(&t.inverse_step.to_le_bytes());
-    for block in t.intervals {
-        for c in block.iter().flatten() {
-            bytes.extend_from_slice(&c.to_le_bytes());
-        }
-    }
+fn independent_crc<const P: usize>(header: [u32; 2], intervals: &[[[f32; 4]; P]]) -> u32 {
+    let bytes: Vec<u8> = words(header, intervals)
+        .iter()
+        .flat_map(|w| w.to_le_bytes())
+        .collect();
     crc::Crc::<u32>::new(&crc::CRC_32_ISO_HDLC).checksum(&bytes)
 }
 
 #[test]
 fn the_generated_crcs_match_an_independent_computation() {
-    assert_eq!(independent_crc(&table::STATE_LOW), table::STATE_LOW_CRC32);
-    assert_eq!(independent_crc(&table::STATE_HIGH), table::STATE_HIGH_CRC32);
+    let (s, t) = (&table::STATE_LOW, &table::TEMPERATURE_LOW);
     assert_eq!(
-        independent_crc(&table::TEMPERATURE_LOW),
-        table::TEMPERATURE_LOW_CRC32
+        independent_crc([s.start.to_bits(), s.inverse_step.to_bits()], s.intervals),
+        table::STATE_LOW_CRC32
     );
     assert_eq!(
-        independent_crc(&table::TEMPERATURE_HIGH),
+        independent_crc([t.shift, t.first], t.intervals),
+        table::TEMPERATURE_LOW_CRC32
+    );
+    let (s, t) = (&table::STATE_HIGH, &table::TEMPERATURE_HIGH);
+    assert_eq!(
+        independent_crc([s.start.to_bits(), s.inverse_step.to_bits()], s.intervals),
+        table::STATE_HIGH_CRC32
+    );
+    assert_eq!(
+        independent_crc([t.shift, t.first], t.intervals),
         table::TEMPERATURE_HIGH_CRC32
     );
 }
 
-/// A table's data as one flat list of f32 (start, inverse_step, coefficients).
-fn flatten<const P: usize>(t: &UniformCubicTable<P>) -> Vec<f32> {
-    let mut v = vec![t.start, t.inverse_step];
-    for block in t.intervals {
-        v.extend(block.iter().flatten());
+/// A table's data as one flat list of 32-bit words: the header, then the
+/// bit pattern of every coefficient.
+fn words<const P: usize>(header: [u32; 2], intervals: &[[[f32; 4]; P]]) -> Vec<u32> {
+    let mut v = header.to_vec();
+    for block in intervals {
+        v.extend(block.iter().flatten().map(|c| c.to_bits()));
     }
     v
 }
 
-fn unflatten<const P: usize>(v: &[f32]) -> (f32, f32, Vec<[[f32; 4]; P]>) {
+fn unflatten<const P: usize>(v: &[u32]) -> ([u32; 2], Vec<[[f32; 4]; P]>) {
     let blocks = v[2..]
         .chunks_exact(4 * P)
         .map(|chunk| {
             let mut block = [[0.0; 4]; P];
             for (q, c) in block.iter_mut().enumerate() {
-                c.copy_from_slice(&chunk[4 * q..4 * q + 4]);
+                for (k, x) in c.iter_mut().enumerate() {
+                    *x = f32::from_bits(chunk[4 * q + k]);
+                }
             }
             block
         })
         .collect();
-    (v[0], v[1], blocks)
+    ([v[0], v[1]], blocks)
 }
 
 /// Flips every bit of the table `id` in turn (in a copy) and returns how
 /// many flips `check_checksums` caught, naming `id`, out of how many.
 fn flip_every_bit(id: TableId) -> (usize, usize) {
+    let compiled = TableSet::compiled();
     let original = match id {
-        TableId::StateLow => flatten(&table::STATE_LOW),
-        TableId::StateHigh => flatten(&table::STATE_HIGH),
-        TableId::TemperatureLow => flatten(&table::TEMPERATURE_LOW),
-        TableId::TemperatureHigh => flatten(&table::TEMPERATURE_HIGH),
+        TableId::StateLow => words(compiled.state_low.0.header, compiled.state_low.0.intervals),
+        TableId::StateHigh => words(
+            compiled.state_high.0.header,
+            compiled.state_high.0.intervals,
+        ),
+        TableId::TemperatureLow => words(
+            compiled.temperature_low.0.header,
+            compiled.temperature_low.0.intervals,
+        ),
+        TableId::TemperatureHigh => words(
+            compiled.temperature_high.0.header,
+            compiled.temperature_high.0.intervals,
+        ),
         other => panic!("table {other:?} not known to this test"),
     };
     let (mut caught, mut flips) = (0, 0);
     let mut damaged = original.clone();
     for word in 0..original.len() {
         for bit in 0..32 {
-            damaged[word] = f32::from_bits(original[word].to_bits() ^ (1 << bit));
+            damaged[word] = original[word] ^ (1 << bit);
             let mut set = TableSet::compiled();
             // The copies must live while `set` borrows them.
-            let (low9, high9, low1, high1);
+            let (nine, one);
             match id {
                 TableId::StateLow | TableId::StateHigh => {
-                    let (start, inverse_step, intervals) = unflatten::<9>(&damaged);
+                    let (header, intervals) = unflatten::<9>(&damaged);
+                    nine = intervals;
+                    let data = TableData {
+                        header,
+                        intervals: &nine,
+                    };
                     if id == TableId::StateLow {
-                        low9 = intervals;
-                        set.state_low.0 = TableData {
-                            start,
-                            inverse_step,
-                            intervals: &low9,
-                        };
+                        set.state_low.0 = data;
                     } else {
-                        high9 = intervals;
-                        set.state_high.0 = TableData {
-                            start,
-                            inverse_step,
-                            intervals: &high9,
-                        };
+                        set.state_high.0 = data;
                     }
                 }
                 _ => {
-                    let (start, inverse_step, intervals) = unflatten::<1>(&damaged);
+                    let (header, intervals) = unflatten::<1>(&damaged);
+                    one = intervals;
+                    let data = TableData {
+                        header,
+                        intervals: &one,
+                    };
                     if id == TableId::TemperatureLow {
-                        low1 = intervals;
-                        set.temperature_low.0 = TableData {
-                            start,
-                            inverse_step,
-                            intervals: &low1,
-                        };
+                        set.temperature_low.0 = data;
                     } else {
-                        high1 = intervals;
-                        set.temperature_high.0 = TableData {
-                            start,
-                            inverse_step,
-                            intervals: &high1,
-                        };
+                        set.temperature_high.0 = data;
                     }
                 }
             }
@@ -137,7 +143,6 @@ fn flip_every_bit(id: TableId) -> (usize, usize) {
     }
     (caught, flips)
 }
-
 #[test]
 fn every_single_bit_flip_in_every_table_is_caught() {
     // Two threads: the machine has two cores.

@@ -90,10 +90,22 @@ fn edge_values() -> Vec<f32> {
         f32::MAX / 1e6,
         // Spline variables at the ends of the tables.
         table::STATE_HIGH.start,
-        table::TEMPERATURE_LOW.start,
-        table::TEMPERATURE_HIGH.start,
     ] {
         v.extend(around(x));
+    }
+    // The octave tables look up the bit pattern of p (or of q = pc − p):
+    // their first knots and every power of two (an octave's edge) in range.
+    for tab in [&table::TEMPERATURE_LOW, &table::TEMPERATURE_HIGH] {
+        let first = f32::from_bits(tab.first << tab.shift);
+        let end = f32::from_bits((tab.first + tab.intervals.len() as u32) << tab.shift);
+        v.extend(around(first));
+        v.extend(around(end));
+        v.extend(around(table::CRITICAL_PRESSURE_PA - first));
+    }
+    for k in 1..=25 {
+        let power = (1u32 << k) as f32;
+        v.extend(around(power));
+        v.extend(around(table::CRITICAL_PRESSURE_PA - power));
     }
     // The saturated values of the second property at both ends and at the
     // table boundary, one ulp either side: the phase classification's edges.

@@ -46,7 +46,7 @@ use crc::{Crc, NoTable, CRC_32_ISO_HDLC};
 
 use crate::accuracy::ACCURACY_BELOW_NEAR_CRITICAL;
 use crate::saturation::{saturation_pressure, saturation_temperature};
-use crate::spline::UniformCubicTable;
+use crate::spline::{OctaveCubicTable, UniformCubicTable};
 use crate::tables::saturation as table;
 use crate::units::{AbsolutePressure, Temperature};
 
@@ -144,39 +144,48 @@ impl fmt::Display for IntegrityError {
 
 impl core::error::Error for IntegrityError {}
 
-/// The data of one table as the self-test sees it: borrowed, so a host test
-/// can hand it a copy with a flipped bit.
+/// The data of one table as the self-test sees it: its two header fields
+/// and its cubics, borrowed, so a host test can hand it a copy with a
+/// flipped bit.
 #[derive(Debug, Clone, Copy)]
 pub struct TableData<'a, const P: usize> {
-    /// x at the first knot, as in [`UniformCubicTable::start`].
-    pub start: f32,
-    /// Intervals per unit of x, as in [`UniformCubicTable::inverse_step`].
-    pub inverse_step: f32,
-    /// The cubics, as in [`UniformCubicTable::intervals`].
+    /// The two fields that place the intervals, as 32-bit words:
+    /// `start` and `inverse_step` (f32 bit patterns) of a
+    /// [`UniformCubicTable`], `shift` and `first` of an [`OctaveCubicTable`].
+    pub header: [u32; 2],
+    /// The cubics, as in the table's `intervals`.
     pub intervals: &'a [[[f32; 4]; P]],
 }
 
 impl<const P: usize> TableData<'static, P> {
-    /// The data of a compiled table.
-    pub const fn of(table: &UniformCubicTable<P>) -> Self {
+    /// The data of a compiled table on uniform knots.
+    pub const fn of_uniform(table: &UniformCubicTable<P>) -> Self {
         Self {
-            start: table.start,
-            inverse_step: table.inverse_step,
+            header: [table.start.to_bits(), table.inverse_step.to_bits()],
+            intervals: table.intervals,
+        }
+    }
+
+    /// The data of a compiled table on octave knots.
+    pub const fn of_octave(table: &OctaveCubicTable<P>) -> Self {
+        Self {
+            header: [table.shift, table.first],
             intervals: table.intervals,
         }
     }
 }
 
 impl<const P: usize> TableData<'_, P> {
-    /// CRC-32/ISO-HDLC of the data: `start`, `inverse_step`, then every
-    /// coefficient in storage order (interval, quantity, power), each f32 as
-    /// the 4 little-endian bytes of its bit pattern. The generator computes
+    /// CRC-32/ISO-HDLC of the data: the two header words, then every
+    /// coefficient in storage order (interval, quantity, power), each as the
+    /// 4 little-endian bytes of its 32-bit pattern. The generator computes
     /// the same from the values it writes, so the result does not depend on
     /// the device's byte order.
     pub fn checksum(&self) -> u32 {
         let mut digest = CRC32.digest();
-        digest.update(&self.start.to_bits().to_le_bytes());
-        digest.update(&self.inverse_step.to_bits().to_le_bytes());
+        for word in self.header {
+            digest.update(&word.to_le_bytes());
+        }
         for block in self.intervals {
             for cubic in block {
                 for c in cubic {
@@ -218,14 +227,20 @@ impl TableSet<'static> {
     /// The compiled tables and the CRCs the generator wrote beside them.
     pub const fn compiled() -> Self {
         Self {
-            state_low: (TableData::of(&table::STATE_LOW), table::STATE_LOW_CRC32),
-            state_high: (TableData::of(&table::STATE_HIGH), table::STATE_HIGH_CRC32),
+            state_low: (
+                TableData::of_uniform(&table::STATE_LOW),
+                table::STATE_LOW_CRC32,
+            ),
+            state_high: (
+                TableData::of_uniform(&table::STATE_HIGH),
+                table::STATE_HIGH_CRC32,
+            ),
             temperature_low: (
-                TableData::of(&table::TEMPERATURE_LOW),
+                TableData::of_octave(&table::TEMPERATURE_LOW),
                 table::TEMPERATURE_LOW_CRC32,
             ),
             temperature_high: (
-                TableData::of(&table::TEMPERATURE_HIGH),
+                TableData::of_octave(&table::TEMPERATURE_HIGH),
                 table::TEMPERATURE_HIGH_CRC32,
             ),
         }

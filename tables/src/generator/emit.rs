@@ -10,7 +10,7 @@ use std::format;
 use std::string::String;
 
 use super::measure::{bound_from_measured, Measured, ZoneMaxima};
-use super::{Generated, Table};
+use super::{Generated, OctaveTable, Table};
 
 /// The command that regenerates the committed file, written into its header.
 pub const REGENERATE_COMMAND: &str =
@@ -70,18 +70,22 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
         out.push_str("        ],\n");
     }
     out.push_str("    ],\n};\n\n");
-    table_crc(out, name, t);
+    let header = [t.knots.start.to_bits(), t.knots.inverse_step.to_bits()];
+    table_crc(out, name, header, &t.intervals);
 }
 
-/// CRC-32/ISO-HDLC of a table's data as the kernel stores it: `start`,
-/// `inverse_step`, then every coefficient in storage order, each f32 as the
-/// 4 little-endian bytes of its bit pattern. The kernel's
-/// `integrity::TableData::checksum` computes the same on the device.
-pub fn table_data_checksum<const P: usize>(t: &Table<P>) -> u32 {
-    let mut bytes = std::vec::Vec::with_capacity(8 + t.size_bytes());
-    bytes.extend_from_slice(&t.knots.start.to_bits().to_le_bytes());
-    bytes.extend_from_slice(&t.knots.inverse_step.to_bits().to_le_bytes());
-    for block in &t.intervals {
+/// CRC-32/ISO-HDLC of a table's data as the kernel stores it: the two
+/// header words (`start` and `inverse_step` as f32 bit patterns for a
+/// uniform table, `shift` and `first` for an octave table), then every
+/// coefficient in storage order, each 32-bit word as its 4 little-endian
+/// bytes. The kernel's `integrity::TableData::checksum` computes the same
+/// on the device.
+pub fn table_data_checksum<const P: usize>(header: [u32; 2], intervals: &[[[f32; 4]; P]]) -> u32 {
+    let mut bytes = std::vec::Vec::with_capacity(8 + intervals.len() * P * 16);
+    for word in header {
+        bytes.extend_from_slice(&word.to_le_bytes());
+    }
+    for block in intervals {
         for c in block.iter().flatten() {
             bytes.extend_from_slice(&c.to_bits().to_le_bytes());
         }
@@ -89,14 +93,53 @@ pub fn table_data_checksum<const P: usize>(t: &Table<P>) -> u32 {
     checksum(&bytes)
 }
 
-fn table_crc<const P: usize>(out: &mut String, name: &str, t: &Table<P>) {
+fn table_crc<const P: usize>(
+    out: &mut String,
+    name: &str,
+    header: [u32; 2],
+    intervals: &[[[f32; 4]; P]],
+) {
     out.push_str(&format!(
-        "/// CRC-32/ISO-HDLC of [`{name}`]'s data (start, inverse_step, every\n\
-         /// coefficient; each f32 as 4 little-endian bytes), checked by\n\
+        "/// CRC-32/ISO-HDLC of [`{name}`]'s data (the two header fields, every\n\
+         /// coefficient; each as 4 little-endian bytes), checked by\n\
          /// `crate::integrity::self_test`.\n\
          pub const {name}_CRC32: u32 = 0x{:08x};\n\n",
-        table_data_checksum(t)
+        table_data_checksum(header, intervals)
     ));
+}
+
+fn octave_table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &OctaveTable<P>) {
+    out.push_str(&format!("/// {doc}\n"));
+    out.push_str(&format!(
+        "/// {} intervals ({} per octave) × {P} cubics × 16 bytes = {} bytes.\n",
+        t.intervals.len(),
+        1u32 << (23 - t.shift),
+        t.size_bytes()
+    ));
+    out.push_str(&format!(
+        "pub static {name}: OctaveCubicTable<{P}> = OctaveCubicTable {{\n"
+    ));
+    out.push_str(&format!("    shift: {},\n", t.shift));
+    out.push_str(&format!("    first: {},\n", t.first));
+    out.push_str("    intervals: &[\n");
+    for (i, block) in t.intervals.iter().enumerate() {
+        out.push_str(&format!(
+            "        // interval {i}: from {}\n        [\n",
+            format_f32(t.knot(i) as f32)
+        ));
+        for c in block {
+            out.push_str(&format!(
+                "            [{}, {}, {}, {}],\n",
+                format_f32(c[0]),
+                format_f32(c[1]),
+                format_f32(c[2]),
+                format_f32(c[3])
+            ));
+        }
+        out.push_str("        ],\n");
+    }
+    out.push_str("    ],\n};\n\n");
+    table_crc(out, name, [t.shift, t.first], &t.intervals);
 }
 
 fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima, points: usize) {
@@ -134,8 +177,8 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     let l = &g.limits;
     let mut body = String::new();
     body.push_str(
-        "//! The generated saturation tables: four uniform cubic-spline tables and\n\
-         //! the constants that define their variables, produced by `vapora-generate`\n\
+        "//! The generated saturation tables: four cubic-spline tables and the\n\
+         //! constants that define their variables, produced by `vapora-generate`\n\
          //! from the IAPWS-IF97 formulation in f64. Never edit by hand.\n\
          //!\n\
          //! Layout (see the `vapora_tables::generator` docs for why these variables):\n\
@@ -143,8 +186,11 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
          //! ln p (ln Pa), ρ' (kg/m³), ρ''/p (kg/(m³·Pa)), h', h'' (J/kg), s', s''\n\
          //! (J/(kg·K)), 1/cp', 1/cp'' (kg·K/J); [`STATE_LOW`] is indexed on T (K)\n\
          //! below 623.15 K, [`STATE_HIGH`] on τ = √(Tc − T) (√K). The temperature\n\
-         //! tables give T (K) from ln p below p_sat(623.15 K) ([`TEMPERATURE_LOW`])\n\
-         //! and τ from σ = √(pc − p) (√Pa) above it ([`TEMPERATURE_HIGH`]).\n",
+         //! tables give T (K) from p below p_sat(623.15 K) ([`TEMPERATURE_LOW`])\n\
+         //! and τ from q = pc − p (Pa) above it ([`TEMPERATURE_HIGH`]), both\n\
+         //! indexed on the f32 bit pattern of their input (intervals of equal\n\
+         //! width inside each octave, knots at the powers of two: no logarithm\n\
+         //! and no root), as cubic Hermite interpolants of the formulation.\n",
     );
     body.push_str(&format!(
         "//!\n//! Coefficient flash: {} bytes in total.\n",
@@ -159,7 +205,7 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
          //! checks the kernel against them on a denser grid plus random points.\n\n",
     );
     body.push_str(
-        "use crate::accuracy::SaturationAccuracy;\nuse crate::spline::UniformCubicTable;\n\n",
+        "use crate::accuracy::SaturationAccuracy;\nuse crate::spline::{OctaveCubicTable, UniformCubicTable};\n\n",
     );
     constant(
         &mut body,
@@ -170,7 +216,7 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     constant(
         &mut body,
         "CRITICAL_PRESSURE_PA",
-        "Critical pressure 22.064 MPa as f32 (defines σ = √(pc − p)).",
+        "Critical pressure 22.064 MPa as f32 (defines q = pc − p).",
         l.critical_pressure_pa,
     );
     constant(
@@ -221,16 +267,16 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
         "Saturated state from 623.15 K, indexed on τ = √(Tc − T) (√K).",
         &g.state_high,
     );
-    table(
+    octave_table(
         &mut body,
         "TEMPERATURE_LOW",
-        "Saturation temperature T (K) below p_sat(623.15 K), indexed on ln p (ln Pa).",
+        "Saturation temperature T (K) below p_sat(623.15 K), indexed on the bit pattern of p (Pa).",
         &g.temperature_low,
     );
-    table(
+    octave_table(
         &mut body,
         "TEMPERATURE_HIGH",
-        "τ = √(Tc − T_sat) (√K) from p_sat(623.15 K), indexed on σ = √(pc − p) (√Pa).",
+        "τ = √(Tc − T_sat) (√K) from p_sat(623.15 K), indexed on the bit pattern of q = pc − p (Pa).",
         &g.temperature_high,
     );
     accuracy(

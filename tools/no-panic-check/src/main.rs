@@ -28,7 +28,7 @@ use vapora_kernel::saturation::{
     saturated_state_at_temperature, saturation_pressure, saturation_temperature, PhaseProperties,
     SaturatedProperty, SaturatedState,
 };
-use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::spline::{cubic, OctaveCubicTable, UniformCubicTable};
 use vapora_kernel::tables::saturation as table;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
@@ -153,6 +153,16 @@ fn locate_and_evaluate<const P: usize>(table: &UniformCubicTable<P>) {
     }
 }
 
+fn locate_octave_and_evaluate<const P: usize>(table: &OctaveCubicTable<P>) {
+    if let Some((block, t)) = table.locate(input()) {
+        for c in block {
+            sink(cubic(c, t));
+        }
+    } else {
+        sink_bits(0);
+    }
+}
+
 fn units() {
     sink_result(AbsolutePressure::from_pa(input()), |p| sink(p.as_pa()));
     sink_result(AbsolutePressure::from_kpa(input()), |p| sink(p.as_kpa()));
@@ -199,8 +209,8 @@ fn saturation() {
 fn spline() {
     locate_and_evaluate(&table::STATE_LOW);
     locate_and_evaluate(&table::STATE_HIGH);
-    locate_and_evaluate(&table::TEMPERATURE_LOW);
-    locate_and_evaluate(&table::TEMPERATURE_HIGH);
+    locate_octave_and_evaluate(&table::TEMPERATURE_LOW);
+    locate_octave_and_evaluate(&table::TEMPERATURE_HIGH);
 }
 
 fn integrity() {
@@ -214,8 +224,8 @@ fn integrity() {
     tables.temperature_low.1 = input_bits();
     tables.temperature_high.1 = input_bits();
     sink_result(check_checksums(&tables), |()| sink_bits(3));
-    sink_bits(TableData::of(&table::STATE_LOW).checksum());
-    sink_bits(TableData::of(&table::TEMPERATURE_HIGH).checksum());
+    sink_bits(TableData::of_uniform(&table::STATE_LOW).checksum());
+    sink_bits(TableData::of_octave(&table::TEMPERATURE_HIGH).checksum());
 }
 
 /// The self-check: one indexing the optimiser cannot prove in bounds. With
