@@ -14,7 +14,7 @@ use vapora_kernel::saturation::{
 };
 use vapora_kernel::tables::saturation as table;
 use vapora_kernel::units::{AbsolutePressure, Temperature};
-use vapora_tables::if97::{region1, region2, region4};
+use vapora_tables::if97::saturation;
 
 /// Critical temperature, K (IAPWS R7-97(2012), Eq. 3).
 pub const CRITICAL_TEMPERATURE_K: f64 = 647.096;
@@ -101,18 +101,15 @@ pub struct ReferenceState {
     pub properties: [f64; 8],
 }
 
-/// The formulation's saturated state at `t_k`, or `None` where it is not
-/// available.
-pub fn reference_at_temperature(t_k: f64) -> Option<ReferenceState> {
-    if !(273.15..=623.15).contains(&t_k) {
-        return None;
-    }
-    let p = region4::saturation_pressure_pa(t_k).ok()?;
-    let l = region1::properties_unchecked(p, t_k);
-    let v = region2::properties_unchecked(p, t_k);
-    Some(ReferenceState {
-        pressure_pa: p,
-        temperature_k: t_k,
+fn reference(
+    s: &saturation::SaturatedStates,
+    pressure_pa: f64,
+    temperature_k: f64,
+) -> ReferenceState {
+    let (l, v) = (&s.liquid, &s.vapour);
+    ReferenceState {
+        pressure_pa,
+        temperature_k,
         properties: [
             l.density_kg_m3,
             v.density_kg_m3,
@@ -123,16 +120,21 @@ pub fn reference_at_temperature(t_k: f64) -> Option<ReferenceState> {
             l.cp_j_kgk,
             v.cp_j_kgk,
         ],
-    })
+    }
 }
 
-/// The formulation's saturated state at `p_pa`.
+/// The formulation's saturated state at `t_k` ([`saturation::at_temperature`]),
+/// or `None` outside its range.
+pub fn reference_at_temperature(t_k: f64) -> Option<ReferenceState> {
+    let s = saturation::at_temperature(t_k).ok()?;
+    Some(reference(&s, s.liquid.pressure_pa, t_k))
+}
+
+/// The formulation's saturated state at `p_pa` ([`saturation::at_pressure`]),
+/// or `None` outside its range.
 pub fn reference_at_pressure(p_pa: f64) -> Option<ReferenceState> {
-    let t = region4::saturation_temperature_k(p_pa).ok()?;
-    reference_at_temperature(t).map(|r| ReferenceState {
-        pressure_pa: p_pa,
-        ..r
-    })
+    let s = saturation::at_pressure(p_pa).ok()?;
+    Some(reference(&s, p_pa, s.liquid.temperature_k))
 }
 
 /// Deviations of one kernel result from the formulation (all ≥ 0), or the
@@ -381,6 +383,23 @@ pub fn grid_inputs(grid: &Grid) -> (Vec<f32>, Vec<f32>) {
         }));
     }
     let mut rng = ChaCha8Rng::seed_from_u64(grid.seed);
+    // A fifth as many again in the near-critical zone, uniform in τ and σ,
+    // which a uniform draw over the whole line would barely visit.
+    if t_max > NEAR_CRITICAL_START_K {
+        let (a, b) = ((tc32 - t_max).sqrt(), (tc32 - NEAR_CRITICAL_START_K).sqrt());
+        let p_start =
+            saturation::at_temperature(NEAR_CRITICAL_START_K).map_or(pb, |s| s.liquid.pressure_pa);
+        let (c, d) = (
+            (pc32 - p_max).max(0.0).sqrt(),
+            (pc32 - p_start).max(0.0).sqrt(),
+        );
+        for _ in 0..grid.random_points / 5 {
+            let tau = rng.random_range(a..=b);
+            ts.push((tc32 - tau * tau) as f32);
+            let sigma = rng.random_range(c..=d);
+            ps.push((pc32 - sigma * sigma) as f32);
+        }
+    }
     for _ in 0..grid.random_points {
         ts.push(rng.random_range(t_min..=t_max) as f32);
         // Uniform in ln p, then a share uniform in p near the top.

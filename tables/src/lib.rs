@@ -1,5 +1,6 @@
-//! Host side of vapora: the full IAPWS-IF97 formulation in `f64`, and (in
-//! later steps) the generator that fits and emits the kernel's spline tables.
+//! Host side of vapora: the full IAPWS-IF97 formulation in `f64`, and (with
+//! the feature `generator`) the generator that fits, measures and emits the
+//! kernel's spline tables (module `generator`, binary `vapora-generate`).
 //!
 //! The formulation is written `no_std` with `libm`, so it can also be compiled
 //! for a microcontroller as the honest "no tables" baseline against which the

@@ -140,3 +140,44 @@ fn the_whole_pipeline_runs_on_an_analytic_line() {
         "emission is deterministic"
     );
 }
+
+#[test]
+fn settings_round_trip_through_the_header_line() {
+    let c = Config {
+        temperature_min_k: 373.15,
+        state_intervals_low: 7,
+        critical_margin_k: 0.02,
+        ..Config::default()
+    };
+    assert_eq!(Config::parse(&c.describe()).unwrap(), c);
+    assert!(Config::parse("no_such_setting=1").is_err());
+    assert!(Config::parse("state_intervals_low=many").is_err());
+}
+
+#[test]
+fn a_narrow_envelope_gives_a_small_table_that_meets_the_accuracy_table() {
+    use vapora_tables::generator::{fit_to_target, iapws97::Iapws97};
+    // A process-steam header run between 100 °C and 200 °C saturation.
+    let base = Config {
+        temperature_min_k: 373.15,
+        temperature_max_k: 473.15,
+        state_intervals_low: 16,
+        temperature_intervals_low: 16,
+        ..Config::default()
+    };
+    let (g, m) = fit_to_target(&base, 1.0, &Iapws97).unwrap();
+    assert!(g.size_bytes() < 2048, "{} bytes", g.size_bytes());
+    assert!(
+        m.below_near_critical
+            .within(&measure::ACCURACY_TABLE_BELOW_NEAR_CRITICAL, 1.0),
+        "{m:?}"
+    );
+    assert!(g.limits.temperature_min_k >= 373.15 && g.limits.temperature_max_k <= 473.150_03);
+    assert!(
+        f64::from(g.limits.pressure_min_pa) >= region4::saturation_pressure_pa(373.15).unwrap()
+    );
+    // Inside the envelope the kernel-path evaluation agrees with the source.
+    let s = measure::state_at_temperature(&g, 423.15);
+    let r = Iapws97.saturated_sample(423.15).unwrap();
+    assert!((f64::from(s.properties[2]) - r.liquid.enthalpy_j_kg).abs() < 10.0);
+}

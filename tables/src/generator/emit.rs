@@ -72,8 +72,16 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
     out.push_str("    ],\n};\n\n");
 }
 
-fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima) {
+fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima, points: usize) {
     out.push_str(&format!("/// {doc}\n"));
+    if points == 0 {
+        out.push_str(
+            "///\n/// No part of this table's envelope lies in the zone: the zeros below\n\
+             /// are not a measurement, and the zone is never reached.\n",
+        );
+    } else {
+        out.push_str(&format!("///\n/// Measured at {points} points.\n"));
+    }
     out.push_str(&format!(
         "pub const {name}: SaturationAccuracy = SaturationAccuracy {{\n"
     ));
@@ -203,12 +211,14 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
         "ACCURACY_BELOW_NEAR_CRITICAL",
         "Accuracy bound for saturation temperatures below Tc − 1 K (generator's measurement).",
         &measured.below_near_critical,
+        measured.points[0],
     );
     accuracy(
         &mut body,
         "ACCURACY_NEAR_CRITICAL",
         "Accuracy bound from Tc − 1 K to Tc − 0.01 K (generator's measurement).",
         &measured.near_critical,
+        measured.points[1],
     );
     let mut out = String::new();
     out.push_str(&format!(

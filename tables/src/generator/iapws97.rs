@@ -3,10 +3,11 @@
 use std::string::{String, ToString};
 
 use super::{PhaseSample, SaturatedSample, SaturationSource};
-use crate::if97::{region1, region2, region4, Properties};
+use crate::if97::{region4, saturation, Properties};
 
-/// The saturation line of IAPWS-IF97: Region 4 for p_sat and T_sat, Regions
-/// 1 and 2 at (p_sat(T), T) for the phases below 623.15 K.
+/// The saturation line of IAPWS-IF97: Region 4 for p_sat and T_sat, and
+/// [`saturation::at_temperature`] for both phases (Regions 1 and 2 at
+/// (p_sat(T), T) up to 623.15 K, the two roots of Region 3 above).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct Iapws97;
 
@@ -29,14 +30,11 @@ impl SaturationSource for Iapws97 {
     }
 
     fn saturated_sample(&self, t_k: f64) -> Result<SaturatedSample, String> {
-        if !(273.15..=super::REGION3_BOUNDARY_TEMPERATURE_K).contains(&t_k) {
-            return Err("the Region 3 saturation line is not available yet".to_string());
-        }
-        let p = region4::saturation_pressure_pa_unchecked(t_k);
+        let s = saturation::at_temperature(t_k).map_err(|e| e.to_string())?;
         Ok(SaturatedSample {
-            pressure_pa: p,
-            liquid: phase(&region1::properties_unchecked(p, t_k)),
-            vapour: phase(&region2::properties_unchecked(p, t_k)),
+            pressure_pa: s.liquid.pressure_pa,
+            liquid: phase(&s.liquid),
+            vapour: phase(&s.vapour),
         })
     }
 }

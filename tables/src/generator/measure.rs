@@ -188,6 +188,8 @@ pub struct Measured {
     pub below_near_critical: ZoneMaxima,
     /// From Tc − 1 K to Tc − `critical_margin_k`.
     pub near_critical: ZoneMaxima,
+    /// Points measured in each zone (a zone outside the envelope has none).
+    pub points: [usize; 2],
 }
 
 /// Upper end of the first zone: Tc − 1 K.
@@ -213,12 +215,13 @@ pub fn measure<S: SaturationSource + ?Sized>(
         let r = source
             .saturated_sample(t_ref)
             .map_err(|message| GenerateError::Source { at: t_ref, message })?;
-        let zone = if t_ref < NEAR_CRITICAL_START_K {
-            &mut out.below_near_critical
+        if t_ref < NEAR_CRITICAL_START_K {
+            out.below_near_critical.update(k, t_ref, &r);
+            out.points[0] += 1;
         } else {
-            &mut out.near_critical
-        };
-        zone.update(k, t_ref, &r);
+            out.near_critical.update(k, t_ref, &r);
+            out.points[1] += 1;
+        }
         Ok(())
     };
     // Temperature inputs: uniform in T below 623.15 K, uniform in τ above.
@@ -290,4 +293,46 @@ pub fn bound_from_measured(x: f64) -> f64 {
     let e = y.log10().floor() - 1.0;
     let scale = 10f64.powf(e);
     (y / scale).ceil() * scale
+}
+
+/// The accuracy table of the project (issue 3) below Tc − 1 K, as a target
+/// for [`super::fit_to_target`].
+pub const ACCURACY_TABLE_BELOW_NEAR_CRITICAL: ZoneMaxima = ZoneMaxima {
+    temperature_k: 1e-3,
+    pressure_relative: 10e-6,
+    liquid_density_relative: 20e-6,
+    vapour_density_relative: 20e-6,
+    liquid_enthalpy_j_kg: 10.0,
+    vapour_enthalpy_j_kg: 10.0,
+    liquid_entropy_j_kgk: 0.02,
+    vapour_entropy_j_kgk: 0.02,
+    liquid_cp_relative: 1e-3,
+    vapour_cp_relative: 1e-3,
+    dryness_fraction: 1e-5,
+};
+
+/// The accuracy table from Tc − 1 K to Tc − 0.01 K (cp is only measured
+/// there, so it has no target).
+pub const ACCURACY_TABLE_NEAR_CRITICAL: ZoneMaxima = ZoneMaxima {
+    temperature_k: 1e-3,
+    pressure_relative: 10e-6,
+    liquid_density_relative: 1e-3,
+    vapour_density_relative: 1e-3,
+    liquid_enthalpy_j_kg: 200.0,
+    vapour_enthalpy_j_kg: 200.0,
+    liquid_entropy_j_kgk: 0.5,
+    vapour_entropy_j_kgk: 0.5,
+    liquid_cp_relative: f64::INFINITY,
+    vapour_cp_relative: f64::INFINITY,
+    dryness_fraction: 1e-3,
+};
+
+impl ZoneMaxima {
+    /// True when every field is within `factor` × the same field of `target`.
+    pub fn within(&self, target: &Self, factor: f64) -> bool {
+        self.fields()
+            .iter()
+            .zip(target.fields().iter())
+            .all(|(m, t)| m.1 <= t.1 * factor)
+    }
 }

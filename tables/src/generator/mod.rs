@@ -82,10 +82,10 @@ impl Default for Config {
         Self {
             temperature_min_k: 273.16,
             temperature_max_k: 647.096,
-            state_intervals_low: 64,
-            state_intervals_high: 32,
-            temperature_intervals_low: 64,
-            temperature_intervals_high: 24,
+            state_intervals_low: 48,
+            state_intervals_high: 48,
+            temperature_intervals_low: 40,
+            temperature_intervals_high: 16,
             samples_per_interval: 12,
             measurement_points_per_interval: 64,
             critical_margin_k: 0.01,
@@ -539,4 +539,53 @@ fn round_down_f32(x: f64) -> f32 {
     } else {
         r
     }
+}
+
+/// Generates the smallest table of a family that meets the project's
+/// accuracy table scaled by `factor` (1.0 = the table itself, 0.5 = twice as
+/// strict) over the envelope of `base`: the four interval counts of `base`
+/// are scaled together by 1/4, 1/3, 1/2, 2/3, 1, 3/2, 2, 3, 4 and the first
+/// that passes the generator's measurement is returned.
+///
+/// # Errors
+/// [`GenerateError::Config`] when even the largest scale misses the target,
+/// and the errors of [`generate`].
+pub fn fit_to_target<S: SaturationSource + ?Sized>(
+    base: &Config,
+    factor: f64,
+    source: &S,
+) -> Result<(Generated, measure::Measured), GenerateError> {
+    const SCALES: [(usize, usize); 9] = [
+        (1, 4),
+        (1, 3),
+        (1, 2),
+        (2, 3),
+        (1, 1),
+        (3, 2),
+        (2, 1),
+        (3, 1),
+        (4, 1),
+    ];
+    for (num, den) in SCALES {
+        let scale = |n: usize| (n * num).div_ceil(den).max(1);
+        let config = Config {
+            state_intervals_low: scale(base.state_intervals_low),
+            state_intervals_high: scale(base.state_intervals_high),
+            temperature_intervals_low: scale(base.temperature_intervals_low),
+            temperature_intervals_high: scale(base.temperature_intervals_high),
+            ..base.clone()
+        };
+        let g = generate(&config, source)?;
+        let m = measure::measure(&g, source)?;
+        if m.below_near_critical
+            .within(&measure::ACCURACY_TABLE_BELOW_NEAR_CRITICAL, factor)
+            && m.near_critical
+                .within(&measure::ACCURACY_TABLE_NEAR_CRITICAL, factor)
+        {
+            return Ok((g, m));
+        }
+    }
+    Err(GenerateError::Config(format!(
+        "no interval count up to 4x the given ones meets {factor} x the accuracy table"
+    )))
 }
