@@ -1,0 +1,146 @@
+#!/usr/bin/env python3
+"""Turns one run of the firmware cost bench into the cost tables.
+
+    cost-table.py insns  STDOUT PLUGIN_LOG OUT_CSV
+    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL OUT_CSV
+
+insns: STDOUT is the bench's semihosting output (`function name=N calls=C`
+lines, in the order of the marks, then `stack name=N bytes=B ...`);
+PLUGIN_LOG holds the plugin's `MARK k insns=N` lines (tools/qemu-insn-count).
+Marks come in pairs around each call; the first function is the calibration
+(same call path, empty body), whose per-call count is subtracted.
+Writes `function,calls,min_insns,median_insns,max_insns,stack_bytes`.
+
+size: NM_OUTPUT is `llvm-nm -S -C --defined-only ELF`, SIZE_OUTPUT is
+`llvm-size -A ELF`, SIZE_OUTPUT_WITHOUT_KERNEL the same for the bench built
+without the kernel's functions. Writes
+`component,code_bytes,table_bytes,static_ram_bytes`: `kernel` (the
+difference between the two images: what the kernel's functions add, code,
+tables and the library code they pull in), both images (code = vector table
++ .text; tables = .rodata + .data, the flash that holds constants and
+initial values; RAM = .data + .bss), and per-symbol detail rows for the
+crates of interest and the bench wrappers (with LTO, a function inlined into
+a wrapper counts in the wrapper's row, and anonymous constants such as
+table data count in no crate's row: use the `kernel` row).
+"""
+import re
+import statistics
+import sys
+
+
+def fail(message):
+    print(f"cost-table: {message}", file=sys.stderr)
+    sys.exit(1)
+
+
+def fields(line):
+    return dict(part.split("=", 1) for part in line.split()[1:] if "=" in part)
+
+
+def insns(stdout_path, log_path, out_path):
+    functions, stacks = [], {}
+    with open(stdout_path) as f:
+        for line in f:
+            if line.startswith("function "):
+                d = fields(line)
+                functions.append((d["name"], int(d["calls"])))
+            elif line.startswith("stack "):
+                d = fields(line)
+                stacks[d["name"]] = int(d["bytes"])
+    marks = []
+    with open(log_path) as f:
+        for line in f:
+            m = re.match(r"MARK (\d+) insns=(\d+)", line)
+            if m:
+                marks.append(int(m.group(2)))
+    expected = 2 * sum(calls for _, calls in functions)
+    if not functions or functions[0][0] != "calibration":
+        fail("the bench output does not start with the calibration")
+    if len(marks) != expected:
+        fail(f"{len(marks)} marks in the plugin log, expected {expected}")
+    deltas = [marks[i + 1] - marks[i] for i in range(0, len(marks), 2)]
+    per_function, start = [], 0
+    for name, calls in functions:
+        per_function.append((name, deltas[start:start + calls]))
+        start += calls
+    calibration = per_function[0][1]
+    if min(calibration) != max(calibration):
+        fail(f"calibration is not repeatable: {sorted(set(calibration))}")
+    overhead = calibration[0]
+    with open(out_path, "w") as out:
+        out.write("function,calls,min_insns,median_insns,max_insns,stack_bytes\n")
+        for name, counts in per_function[1:]:
+            net = [c - overhead for c in counts]
+            if name not in stacks:
+                fail(f"no stack line for {name}")
+            out.write(f"{name},{len(net)},{min(net)},{statistics.median_low(net)},"
+                      f"{max(net)},{stacks[name]}\n")
+    print(f"calibration overhead {overhead} instructions per call subtracted")
+
+
+# Symbol types from nm: code, read-only data (tables), RAM.
+CODE, TABLES, RAM = set("tT"), set("rR"), set("dDbB")
+
+
+def size(nm_path, size_path, size_without_kernel_path, out_path):
+    rows = {}
+
+    def add(component, kind, nbytes):
+        row = rows.setdefault(component, [0, 0, 0])
+        row[kind] += nbytes
+
+    with open(nm_path) as f:
+        for line in f:
+            parts = line.split(None, 3)
+            if len(parts) != 4:
+                continue
+            _, size_hex, kind, name = parts
+            nbytes = int(size_hex, 16)
+            slot = 0 if kind in CODE else 1 if kind in TABLES else 2 if kind in RAM else None
+            if slot is None:
+                continue
+            if "vapora_kernel::" in name:
+                add("crate:vapora_kernel", slot, nbytes)
+            elif "libm::" in name:
+                add("crate:libm", slot, nbytes)
+            elif "compiler_builtins::" in name:
+                add("crate:compiler_builtins", slot, nbytes)
+            m = re.search(r"vapora_firmware_example::measured::(call_\w+?)(::h[0-9a-f]+)?$",
+                          name.strip())
+            if m:
+                add(f"wrapper:{m.group(1)}", slot, nbytes)
+    full = image(size_path)
+    without = image(size_without_kernel_path)
+    rows["image"] = full
+    rows["image-without-kernel"] = without
+    rows["kernel"] = [a - b for a, b in zip(full, without)]
+    for name in ("crate:vapora_kernel", "crate:libm", "crate:compiler_builtins"):
+        rows.setdefault(name, [0, 0, 0])
+    order = lambda n: (0 if n == "kernel" else 2 if n.startswith("image") else 1, n)
+    with open(out_path, "w") as out:
+        out.write("component,code_bytes,table_bytes,static_ram_bytes\n")
+        for name in sorted(rows, key=order):
+            code, tables, ram = rows[name]
+            out.write(f"{name},{code},{tables},{ram}\n")
+
+
+def image(size_path):
+    """[code, tables, RAM] bytes of a linked image from `llvm-size -A`."""
+    sections = {}
+    with open(size_path) as f:
+        for line in f:
+            parts = line.split()
+            if len(parts) == 3 and parts[0].startswith(".") and parts[1].isdigit():
+                sections[parts[0]] = int(parts[1])
+    if ".text" not in sections:
+        fail(f"no .text section in {size_path}")
+    s = lambda name: sections.get(name, 0)
+    # .data occupies flash (its initial values) and RAM.
+    return [s(".vector_table") + s(".text"), s(".rodata") + s(".data"), s(".data") + s(".bss")]
+
+
+if __name__ == "__main__":
+    arguments = {"insns": 3, "size": 4}
+    if len(sys.argv) < 2 or arguments.get(sys.argv[1]) != len(sys.argv) - 2:
+        fail(__doc__)
+    {"insns": insns, "size": size}[sys.argv[1]](*sys.argv[2:])
