@@ -4,4 +4,5 @@
 
 pub mod accuracy;
 pub mod regress;
+pub mod report;
 pub mod tolerance;
