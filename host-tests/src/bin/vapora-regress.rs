@@ -38,7 +38,7 @@ enum Command {
     /// Phase, dryness fraction and properties at each row's p_pa and one of
     /// t_k, h_j_kg, s_j_kgk, x.
     State,
-    /// Check expected values (with <column>_tol / <column>_tol_rel
+    /// Check expected values (with COLUMN_tol / COLUMN_tol_rel
     /// tolerances) and list every value out of tolerance.
     Compare {
         /// Which mode's inputs and outputs the expected file holds.
