@@ -441,3 +441,31 @@ fn readme_demo_files_pass_with_both_models() {
         }
     }
 }
+
+#[test]
+fn readme_failing_compare_example_is_what_the_tool_prints() {
+    let readme = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/../README.md"))
+        .expect("README.md");
+    let after = readme
+        .split_once("With two values mistyped on the sheet")
+        .expect("README example")
+        .1;
+    let shown = after
+        .split_once("```csv\n")
+        .and_then(|(_, rest)| rest.split_once("```"))
+        .expect("csv block")
+        .0;
+    let sheet = std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/data/demo-plant/drum-saturation.csv"
+    ))
+    .expect("demo file")
+    .replacen("880.40", "880.10", 1)
+    .replacen("2782.31e3,50", "2782.61e3,50", 1);
+    let out = tool(
+        &["--model", "reference", "compare", "--mode", "saturation"],
+        &sheet,
+    );
+    assert_eq!(out.code, Some(1), "{}", out.stderr);
+    assert_eq!(out.stdout, shown);
+}
