@@ -3,4 +3,6 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+pub mod regress;
+pub mod report;
 pub mod tolerance;
