@@ -3,5 +3,7 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+pub mod regress;
+pub mod report;
 pub mod robustness;
 pub mod tolerance;
