@@ -7,7 +7,13 @@
 #      it must exit with success and end with `end result=pass`,
 #   4. checks that the three cores printed the same results, digit for digit,
 #   5. checks that a deliberately failing build does fail (the harness can fail),
-#   6. runs the cost measurement (target/cost/*.csv).
+#   6. checks the printed steam figures against the f64 formulation
+#      (host-tests/tests/firmware_output.rs),
+#   7. runs the bit-identity test on each core: every vector of
+#      firmware-example/vectors/kernel-bits.bin (the kernel's exact f32 bits
+#      on the host) recomputed on the device; checks that the M4F images
+#      contain no fused multiply-add, and that a flipped bit is caught,
+#   8. runs the cost measurement (target/cost/*.csv).
 # Any failure stops the script with a non-zero status.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -69,6 +75,54 @@ if [ "$status" = 0 ] || ! grep -qx "end result=fail" "$out/$check-must-fail.txt"
   echo "firmware: the build with an injected check failure did not fail (status $status)" >&2
   exit 1
 fi
+echo "exit status $status, as it must be"
+
+step "printed results against the f64 formulation (host test)"
+(
+  # Host build: the host target dir and compiler, not the firmware's.
+  export CARGO_TARGET_DIR=$VAPORA_HOST_TARGET_DIR
+  unset RUSTC RUSTC_BOOTSTRAP
+  VAPORA_FIRMWARE_OUTPUT=$PWD/$out cargo test --workspace --all-features --test firmware_output -- --ignored --nocapture
+)
+
+for t in "${targets[@]}"; do
+  step "bit identity with the host on $t"
+  status=0
+  VAPORA_QEMU_TIMEOUT=120 fw_cargo run --quiet --release --target "$t" --bin bit-identity \
+    >"$out/$t-bit-identity.txt" || status=$?
+  grep -v '^function ' "$out/$t-bit-identity.txt"
+  if [ "$status" != 0 ] || ! grep -qx "end result=pass" "$out/$t-bit-identity.txt"; then
+    echo "firmware: $t does not reproduce the host's bits (exit status $status); see $out/$t-bit-identity.txt" >&2
+    exit 1
+  fi
+done
+
+step "no fused multiply-add in the M4F images"
+# vmla/vmls on the M4F round the product before adding (as separate
+# instructions would); the fused vfma/vfms/vfnma/vfnms round once, which
+# the host build does not do. Rust does not contract a*b+c by default;
+# this checks that it stays so.
+objdump=$(dirname "$VAPORA_NM")/llvm-objdump
+if [ -x "$objdump" ]; then
+  for bin in bit-identity steam-header-monitor; do
+    fused=$("$objdump" -d "$VAPORA_FIRMWARE_TARGET_DIR/thumbv7em-none-eabihf/release/$bin" |
+      grep -ciE $'\t(vfma|vfms|vfnma|vfnms)\.' || true)
+    echo "$bin: $fused fused multiply-add instructions"
+    [ "$fused" = 0 ] || exit 1
+  done
+else
+  echo "skipped: no llvm-objdump beside $VAPORA_NM"
+fi
+
+step "a flipped bit fails the bit-identity test (harness check)"
+status=0
+VAPORA_QEMU_TIMEOUT=120 fw_cargo run --quiet --release --target "$check" --bin bit-identity \
+  --features inject-check-failure >"$out/$check-bit-identity-must-fail.txt" || status=$?
+if [ "$status" = 0 ] || ! grep -qx "end result=fail" "$out/$check-bit-identity-must-fail.txt"; then
+  echo "firmware: the bit-identity test did not catch a flipped bit (status $status)" >&2
+  exit 1
+fi
+grep '^diff ' "$out/$check-bit-identity-must-fail.txt"
 echo "exit status $status, as it must be"
 
 step "cost measurement"

@@ -42,7 +42,26 @@ fn sweep_log(i: u32, lo: f32, hi: f32) -> f32 {
 /// saturation functions land; `scripts/measure-cost.sh` also builds the
 /// bench without them (feature `without-kernel`) and takes the kernel's
 /// flash and static RAM as the difference between the two images.
-pub const KERNEL: &[Measured] = &[];
+pub const KERNEL: &[Measured] = &[
+    Measured {
+        name: "saturation_temperature",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_saturation_temperature,
+    },
+    Measured {
+        name: "saturated_state_at_pressure",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_saturated_state_at_pressure,
+    },
+    Measured {
+        name: "wet_steam_at_pressure",
+        calls: SWEEP,
+        input: pressure_dryness_input,
+        call: call_wet_steam_at_pressure,
+    },
+];
 
 /// Stand-ins and reference points, measured after the kernel's functions.
 pub const STAND_INS: &[Measured] = &[
@@ -138,4 +157,49 @@ fn call_horner20_f64(x: [f32; 2]) -> u32 {
     // Fold the double's bits so none of the work can be dropped.
     let bits = value.to_bits();
     (bits >> 32) as u32 ^ bits as u32
+}
+
+/// Absolute pressures over the kernel's whole saturation range, Pa.
+fn pressure_input(i: u32) -> [f32; 2] {
+    use vapora_kernel::saturation::{PRESSURE_MAX_PA, PRESSURE_MIN_PA};
+    // Clamped: exp(log(x)) in f32 can land just outside the range.
+    let p = sweep_log(i, PRESSURE_MIN_PA, PRESSURE_MAX_PA).clamp(PRESSURE_MIN_PA, PRESSURE_MAX_PA);
+    [p, 0.0]
+}
+
+fn pressure_dryness_input(i: u32) -> [f32; 2] {
+    [pressure_input(i)[0], sweep(i, 0.0, 1.0)]
+}
+
+/// What an error result contributes to the checksum.
+const ERROR_BITS: u32 = u32::MAX;
+
+#[inline(never)]
+fn call_saturation_temperature(x: [f32; 2]) -> u32 {
+    vapora_kernel::units::AbsolutePressure::from_pa(x[0])
+        .ok()
+        .and_then(|p| vapora_kernel::saturation::saturation_temperature(p).ok())
+        .map_or(ERROR_BITS, |t| t.as_kelvin().to_bits())
+}
+
+#[inline(never)]
+fn call_saturated_state_at_pressure(x: [f32; 2]) -> u32 {
+    vapora_kernel::units::AbsolutePressure::from_pa(x[0])
+        .ok()
+        .and_then(|p| vapora_kernel::saturation::saturated_state_at_pressure(p).ok())
+        .map_or(ERROR_BITS, |s| {
+            s.vapour.enthalpy_j_kg.to_bits()
+                ^ s.liquid.density_kg_m3.to_bits()
+                ^ s.vapour.density_kg_m3.to_bits()
+        })
+}
+
+#[inline(never)]
+fn call_wet_steam_at_pressure(x: [f32; 2]) -> u32 {
+    vapora_kernel::units::AbsolutePressure::from_pa(x[0])
+        .ok()
+        .and_then(|p| vapora_kernel::mixture::wet_steam_at_pressure(p, x[1]).ok())
+        .map_or(ERROR_BITS, |w| {
+            w.enthalpy_j_kg.to_bits() ^ w.density_kg_m3.to_bits()
+        })
 }

@@ -3,4 +3,5 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+pub mod bit_vectors;
 pub mod tolerance;
