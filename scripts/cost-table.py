@@ -2,7 +2,8 @@
 """Turns one run of the firmware cost bench into the cost tables.
 
     cost-table.py insns  STDOUT PLUGIN_LOG OUT_CSV
-    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL OUT_CSV
+    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL [SIZE_OUTPUT_WITHOUT_BASELINE] OUT_CSV
+    cost-table.py ratio  COST_CSV OUT_CSV
 
 insns: STDOUT is the bench's semihosting output (`function name=N calls=C`
 lines, in the order of the marks, then `stack name=N bytes=B ...`);
@@ -21,7 +22,15 @@ tables and the library code they pull in), both images (code = vector table
 initial values; RAM = .data + .bss), and per-symbol detail rows for the
 crates of interest and the bench wrappers (with LTO, a function inlined into
 a wrapper counts in the wrapper's row, and anonymous constants such as
-table data count in no crate's row: use the `kernel` row).
+table data count in no crate's row: use the `kernel` row). With
+SIZE_OUTPUT_WITHOUT_BASELINE (the bench built without the f64 formulation
+baseline) a `baseline` row gives the formulation's flash the same way.
+
+ratio: pairs each baseline row `f64_NAME` of COST_CSV with the kernel row
+`NAME` and writes `function,kernel_median_insns,baseline_median_insns,
+median_ratio,kernel_max_insns,baseline_max_insns,worst_ratio,
+kernel_stack_bytes,baseline_stack_bytes` (ratio = baseline / kernel; worst
+= the two maxima over the same sweep of inputs).
 """
 import re
 import statistics
@@ -82,7 +91,8 @@ def insns(stdout_path, log_path, out_path):
 CODE, TABLES, RAM = set("tT"), set("rR"), set("dDbB")
 
 
-def size(nm_path, size_path, size_without_kernel_path, out_path):
+def size(nm_path, size_path, size_without_kernel_path, *rest):
+    *size_without_baseline_path, out_path = rest
     rows = {}
 
     def add(component, kind, nbytes):
@@ -114,9 +124,14 @@ def size(nm_path, size_path, size_without_kernel_path, out_path):
     rows["image"] = full
     rows["image-without-kernel"] = without
     rows["kernel"] = [a - b for a, b in zip(full, without)]
+    if size_without_baseline_path:
+        without_baseline = image(size_without_baseline_path[0])
+        rows["image-without-baseline"] = without_baseline
+        rows["baseline"] = [a - b for a, b in zip(full, without_baseline)]
     for name in ("crate:vapora_kernel", "crate:libm", "crate:compiler_builtins"):
         rows.setdefault(name, [0, 0, 0])
-    order = lambda n: (0 if n == "kernel" else 2 if n.startswith("image") else 1, n)
+    order = lambda n: (0 if n == "kernel" else 1 if n == "baseline"
+                       else 3 if n.startswith("image") else 2, n)
     with open(out_path, "w") as out:
         out.write("component,code_bytes,table_bytes,static_ram_bytes\n")
         for name in sorted(rows, key=order):
@@ -139,8 +154,35 @@ def image(size_path):
     return [s(".vector_table") + s(".text"), s(".rodata") + s(".data"), s(".data") + s(".bss")]
 
 
+def read_cost(path):
+    """{function: row dict} of a cost CSV, in file order."""
+    with open(path) as f:
+        lines = [line.strip().split(",") for line in f if line.strip()]
+    header, body = lines[0], lines[1:]
+    return {row[0]: dict(zip(header, row)) for row in body}
+
+
+def ratio(cost_path, out_path):
+    rows = read_cost(cost_path)
+    pairs = [(name[len("f64_"):], name) for name in rows if name.startswith("f64_")]
+    if not pairs:
+        fail(f"no f64_ baseline rows in {cost_path}")
+    with open(out_path, "w") as out:
+        out.write("function,kernel_median_insns,baseline_median_insns,median_ratio,"
+                  "kernel_max_insns,baseline_max_insns,worst_ratio,"
+                  "kernel_stack_bytes,baseline_stack_bytes\n")
+        for kernel_name, baseline_name in pairs:
+            if kernel_name not in rows:
+                fail(f"baseline {baseline_name} has no kernel row {kernel_name}")
+            k, b = rows[kernel_name], rows[baseline_name]
+            km, bm = int(k["median_insns"]), int(b["median_insns"])
+            kx, bx = int(k["max_insns"]), int(b["max_insns"])
+            out.write(f"{kernel_name},{km},{bm},{bm / km:.1f},{kx},{bx},{bx / kx:.1f},"
+                      f"{k['stack_bytes']},{b['stack_bytes']}\n")
+
+
 if __name__ == "__main__":
-    arguments = {"insns": 3, "size": 4}
-    if len(sys.argv) < 2 or arguments.get(sys.argv[1]) != len(sys.argv) - 2:
+    arguments = {"insns": (3,), "size": (4, 5), "ratio": (2,)}
+    if len(sys.argv) < 2 or len(sys.argv) - 2 not in arguments.get(sys.argv[1], ()):
         fail(__doc__)
-    {"insns": insns, "size": size}[sys.argv[1]](*sys.argv[2:])
+    {"insns": insns, "size": size, "ratio": ratio}[sys.argv[1]](*sys.argv[2:])
