@@ -6,7 +6,7 @@
 //! relations below are the same for all three. Region 3 is a Helmholtz
 //! formulation and has its own counterpart.
 
-use super::{Properties, SPECIFIC_GAS_CONSTANT_J_KGK};
+use super::{d2powi, dpowi, powi, Properties, SPECIFIC_GAS_CONSTANT_J_KGK};
 
 /// γ and its first and second derivatives at one (π, τ), total (ideal-gas
 /// plus residual part where the region has both).
@@ -28,6 +28,53 @@ pub(crate) struct GibbsDerivatives {
     pub gamma_tautau: f64,
     /// ∂²γ/∂π∂τ.
     pub gamma_pitau: f64,
+}
+
+impl GibbsDerivatives {
+    /// The ideal-gas part γ° = ln π + Σ n°ᵢ τ^J°ᵢ shared by Region 2
+    /// (Eq. 16) and Region 5 (Eq. 33), with its derivatives.
+    pub(crate) fn ideal_gas(
+        pi: f64,
+        tau: f64,
+        terms: impl IntoIterator<Item = (i32, f64)>,
+    ) -> Self {
+        let mut d = Self {
+            pi,
+            tau,
+            gamma: libm::log(pi),
+            // d(ln π)/dπ = 1/π; the ideal-gas part has no π–τ cross term.
+            gamma_pi: 1.0 / pi,
+            gamma_pipi: -1.0 / (pi * pi),
+            gamma_tau: 0.0,
+            gamma_tautau: 0.0,
+            gamma_pitau: 0.0,
+        };
+        for (j, n) in terms {
+            d.gamma += n * powi(tau, j);
+            d.gamma_tau += n * dpowi(tau, j);
+            d.gamma_tautau += n * d2powi(tau, j);
+        }
+        d
+    }
+
+    /// Adds a residual part γʳ = Σ nᵢ π^Iᵢ b^Jᵢ, where b is τ shifted by the
+    /// region's constant (τ − 0.5 in Region 2, Eq. 17; τ itself in Region 5,
+    /// Eq. 34), so ∂b/∂τ = 1.
+    pub(crate) fn add_residual(&mut self, b: f64, terms: &[(i32, i32, f64)]) {
+        let pi = self.pi;
+        for &(i, j, n) in terms {
+            let pi_i = powi(pi, i);
+            let dpi_i = dpowi(pi, i);
+            let b_j = powi(b, j);
+            let db_j = dpowi(b, j);
+            self.gamma += n * pi_i * b_j;
+            self.gamma_pi += n * dpi_i * b_j;
+            self.gamma_pipi += n * d2powi(pi, i) * b_j;
+            self.gamma_tau += n * pi_i * db_j;
+            self.gamma_tautau += n * pi_i * d2powi(b, j);
+            self.gamma_pitau += n * dpi_i * db_j;
+        }
+    }
 }
 
 /// The properties at (p, T) given the derivatives of γ there.

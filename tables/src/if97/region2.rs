@@ -10,7 +10,7 @@
 
 use super::gibbs::{properties_from_gibbs, GibbsDerivatives};
 use super::{b23, region1, region4};
-use super::{d2powi, dpowi, powi, require_finite, require_finite_properties};
+use super::{require_finite, require_finite_properties};
 use super::{FormulationError, Properties};
 
 /// Reducing pressure p* of Eqs. 15 and 18, Pa (1 MPa).
@@ -132,50 +132,20 @@ fn gibbs_derivatives(
     let pi = pressure_pa / REDUCING_PRESSURE_PA;
     let tau = REDUCING_TEMPERATURE_K / temperature_k;
 
-    // Ideal-gas part γ° = ln π + Σ n°ᵢ τ^J°ᵢ (Eq. 16).
-    let mut gamma = libm::log(pi);
-    let mut gamma_tau = 0.0;
-    let mut gamma_tautau = 0.0;
-    for (index, &(j, table_n)) in IDEAL.iter().enumerate() {
+    // Ideal-gas part γ° = ln π + Σ n°ᵢ τ^J°ᵢ (Eq. 16), with n°1 and n°2
+    // supplied by the caller (Eq. 18 changes them).
+    let ideal = IDEAL.iter().enumerate().map(|(index, &(j, table_n))| {
         let n = match index {
             0 => ideal_n1_n2[0],
             1 => ideal_n1_n2[1],
             _ => table_n,
         };
-        gamma += n * powi(tau, j);
-        gamma_tau += n * dpowi(tau, j);
-        gamma_tautau += n * d2powi(tau, j);
-    }
-    // d(ln π)/dπ = 1/π; the ideal-gas part has no π–τ cross term.
-    let mut gamma_pi = 1.0 / pi;
-    let mut gamma_pipi = -1.0 / (pi * pi);
-    let mut gamma_pitau = 0.0;
-
+        (j, n)
+    });
+    let mut d = GibbsDerivatives::ideal_gas(pi, tau, ideal);
     // Residual part γʳ = Σ nᵢ π^Iᵢ (τ − 0.5)^Jᵢ (Eqs. 17 and 18).
-    let b = tau - 0.5;
-    for &(i, j, n) in residual {
-        let pi_i = powi(pi, i);
-        let dpi_i = dpowi(pi, i);
-        let b_j = powi(b, j);
-        let db_j = dpowi(b, j);
-        gamma += n * pi_i * b_j;
-        gamma_pi += n * dpi_i * b_j;
-        gamma_pipi += n * d2powi(pi, i) * b_j;
-        gamma_tau += n * pi_i * db_j;
-        gamma_tautau += n * pi_i * d2powi(b, j);
-        gamma_pitau += n * dpi_i * db_j;
-    }
-
-    GibbsDerivatives {
-        pi,
-        tau,
-        gamma,
-        gamma_pi,
-        gamma_pipi,
-        gamma_tau,
-        gamma_tautau,
-        gamma_pitau,
-    }
+    d.add_residual(tau - 0.5, residual);
+    d
 }
 
 /// Region 2 properties at (p, T) from Eq. 15 with no range check.

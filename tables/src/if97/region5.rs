@@ -5,7 +5,7 @@
 //! Range: 1073.15 K ≤ T ≤ 2273.15 K and 0 < p ≤ 50 MPa.
 
 use super::gibbs::{properties_from_gibbs, GibbsDerivatives};
-use super::{d2powi, dpowi, powi, require_finite, require_finite_properties};
+use super::{require_finite, require_finite_properties};
 use super::{FormulationError, Properties};
 
 /// Reducing pressure p* of Eq. 32, Pa (1 MPa).
@@ -50,44 +50,11 @@ fn gibbs_derivatives(pressure_pa: f64, temperature_k: f64) -> GibbsDerivatives {
     let tau = REDUCING_TEMPERATURE_K / temperature_k;
 
     // Ideal-gas part γ° = ln π + Σ n°ᵢ τ^J°ᵢ (Eq. 33).
-    let mut gamma = libm::log(pi);
-    let mut gamma_tau = 0.0;
-    let mut gamma_tautau = 0.0;
-    for &(j, n) in &IDEAL {
-        gamma += n * powi(tau, j);
-        gamma_tau += n * dpowi(tau, j);
-        gamma_tautau += n * d2powi(tau, j);
-    }
-    let mut gamma_pi = 1.0 / pi;
-    let mut gamma_pipi = -1.0 / (pi * pi);
-    let mut gamma_pitau = 0.0;
-
+    let mut d = GibbsDerivatives::ideal_gas(pi, tau, IDEAL);
     // Residual part γʳ = Σ nᵢ π^Iᵢ τ^Jᵢ (Eq. 34): unlike Region 2, Region 5
     // uses τ itself, not τ − 0.5.
-    let b = tau;
-    for &(i, j, n) in &RESIDUAL {
-        let pi_i = powi(pi, i);
-        let dpi_i = dpowi(pi, i);
-        let b_j = powi(b, j);
-        let db_j = dpowi(b, j);
-        gamma += n * pi_i * b_j;
-        gamma_pi += n * dpi_i * b_j;
-        gamma_pipi += n * d2powi(pi, i) * b_j;
-        gamma_tau += n * pi_i * db_j;
-        gamma_tautau += n * pi_i * d2powi(b, j);
-        gamma_pitau += n * dpi_i * db_j;
-    }
-
-    GibbsDerivatives {
-        pi,
-        tau,
-        gamma,
-        gamma_pi,
-        gamma_pipi,
-        gamma_tau,
-        gamma_tautau,
-        gamma_pitau,
-    }
+    d.add_residual(tau, &RESIDUAL);
+    d
 }
 
 /// Region 5 properties at (p, T) with no range check.
