@@ -19,6 +19,8 @@ use vapora_kernel::saturation::{
     saturated_state_at_temperature, saturation_pressure, saturation_temperature, SaturatedProperty,
     SaturatedState,
 };
+use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::tables::saturation::{STATE_LOW, TEMPERATURE_LOW};
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
 /// Most output words of any function (the saturated state: status plus 14).
@@ -244,6 +246,22 @@ fn temperature_out(r: Result<Temperature, UnitError>) -> Output {
     r.map_or_else(unit_code, |t| Output::ok(&[t.as_kelvin()]))
 }
 
+/// `table.locate(x)` and `cubic` on every quantity of the interval found:
+/// t, then the P values; status 0x501 for an empty table.
+fn locate_and_evaluate<const P: usize>(table: &UniformCubicTable<P>, x: f32) -> Output {
+    match table.locate(x) {
+        None => Output::new(&[0x501]),
+        Some((block, t)) => {
+            let mut out = Output::ok(&[t]);
+            for (w, c) in out.words.iter_mut().skip(2).zip(block.iter()) {
+                *w = cubic(c, t).to_bits();
+            }
+            out.len = (2 + P).min(MAX_WORDS);
+            out
+        }
+    }
+}
+
 /// Every public kernel function, in the vector file's order. Inputs: `p`
 /// absolute pressure in Pa, `T` temperature in K, then the function's own
 /// second input.
@@ -377,6 +395,15 @@ pub const CALLS: &[KernelCall] = &[
                 a.dryness_fraction,
             ])
         },
+    },
+    // --- spline evaluation on the generated tables ---
+    KernelCall {
+        name: "UniformCubicTable::locate,cubic(STATE_LOW,T)",
+        eval: |x| locate_and_evaluate(&STATE_LOW, x[0]),
+    },
+    KernelCall {
+        name: "UniformCubicTable::locate,cubic(TEMPERATURE_LOW,ln_p)",
+        eval: |x| locate_and_evaluate(&TEMPERATURE_LOW, x[0]),
     },
     // --- units ---
     KernelCall {

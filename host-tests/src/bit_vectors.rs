@@ -282,6 +282,13 @@ fn inputs_of(call: &KernelCall) -> Vec<[f32; 2]> {
         ),
         "wet_steam_at_pressure" => mixture(pressures_2d()),
         "wet_steam_at_temperature" => mixture(temperatures_2d()),
+        "UniformCubicTable::locate,cubic" if name.contains("STATE_LOW") => single(temperatures),
+        "UniformCubicTable::locate,cubic" => single(
+            pressures
+                .iter()
+                .map(|&p| if p > 0.0 { p.ln() } else { p })
+                .collect(),
+        ),
         "AbsolutePressure::from_gauge" => pairs(&gauge, &ambient),
         "AbsolutePressure::to_gauge" => pairs(&[0.0, 611.0, 1e5, 1.03e6, 2.2e7, -1.0], &ambient),
         _ => single(unit_values),
