@@ -13,7 +13,10 @@
 #      firmware-example/vectors/kernel-bits.bin (the kernel's exact f32 bits
 #      on the host) recomputed on the device; checks that the M4F images
 #      contain no fused multiply-add, and that a flipped bit is caught,
-#   8. runs the cost measurement (target/cost/*.csv).
+#   8. builds the defmt-log binary (the kernel's types logged with defmt) on
+#      each core, runs it and decodes its frames with defmt-print; the three
+#      cores must log the same text,
+#   9. runs the cost measurement (target/cost/*.csv).
 # Any failure stops the script with a non-zero status.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -32,7 +35,7 @@ if [ "$VAPORA_CROSS_PATH" = rustup ] && cargo fmt --version >/dev/null 2>&1 &&
   cargo clippy --version >/dev/null 2>&1; then
   step "fmt and clippy (warnings denied)"
   (cd firmware-example && cargo fmt -- --check)
-  fw_cargo clippy --release --target thumbv7em-none-eabihf --bins --lib -- -D warnings
+  fw_cargo clippy --release --target thumbv7em-none-eabihf --bins --lib --features defmt-log -- -D warnings
 else
   step "fmt and clippy skipped (not available with the $VAPORA_CROSS_PATH toolchain)"
 fi
@@ -124,6 +127,37 @@ if [ "$status" = 0 ] || ! grep -qx "end result=fail" "$out/$check-bit-identity-m
 fi
 grep '^diff ' "$out/$check-bit-identity-must-fail.txt"
 echo "exit status $status, as it must be"
+
+step "defmt log on every core, decoded on the host"
+for t in "${targets[@]}"; do
+  fw_cargo build --quiet --release --target "$t" --bin defmt-log --features defmt-log
+done
+if [ -n "${VAPORA_DEFMT_PRINT:-}" ]; then
+  for t in "${targets[@]}"; do
+    status=0
+    VAPORA_QEMU_TIMEOUT=60 fw_cargo run --quiet --release --target "$t" --bin defmt-log \
+      --features defmt-log >"$out/$t-defmt.bin" || status=$?
+    # Decoded lines only (no timestamps or locations), so cores compare.
+    "$VAPORA_DEFMT_PRINT" --log-format '{L} {s}' -e "$VAPORA_FIRMWARE_TARGET_DIR/$t/release/defmt-log" \
+      <"$out/$t-defmt.bin" >"$out/$t-defmt.txt" 2>"$out/$t-defmt.err" || true
+    if [ "$status" != 0 ] || ! grep -q "end result=pass" "$out/$t-defmt.txt"; then
+      cat "$out/$t-defmt.txt" "$out/$t-defmt.err"
+      echo "firmware: defmt-log failed on $t (exit status $status)" >&2
+      exit 1
+    fi
+  done
+  cat "$out/${targets[0]}-defmt.txt"
+  for t in "${targets[@]:1}"; do
+    grep -v 'begin firmware' "$out/${targets[0]}-defmt.txt" >"$out/defmt-reference.txt"
+    if ! grep -v 'begin firmware' "$out/$t-defmt.txt" | diff -u "$out/defmt-reference.txt" -; then
+      echo "firmware: $t logged different results from ${targets[0]}" >&2
+      exit 1
+    fi
+  done
+  echo "decoded and identical on ${targets[*]}"
+else
+  echo "SKIPPED decoding: defmt-print is not installed (scripts/cross-setup.sh could not install it)"
+fi
 
 step "cost measurement"
 scripts/measure-cost.sh "${targets[@]}"
