@@ -381,6 +381,13 @@ pub fn grid_inputs(grid: &Grid) -> (Vec<f32>, Vec<f32>) {
             let s = lerp(a, b, k, n);
             (pc32 - s * s) as f32
         }));
+        // The temperature table there is indexed on the bit pattern of
+        // q = pc − p, its knots nearly uniform in ln q: a grid uniform in
+        // ln q as well, twice the points per interval on average (at least
+        // `m` in the widest interval of an octave).
+        let n = table::TEMPERATURE_HIGH.intervals.len() * m * 2;
+        let (a, b) = ((pc32 - p_max).max(2.0).ln(), (pc32 - pb).ln());
+        ps.extend((0..=n).map(|k| (pc32 - lerp(a, b, k, n).exp()) as f32));
     }
     let mut rng = ChaCha8Rng::seed_from_u64(grid.seed);
     // A fifth as many again in the near-critical zone, uniform in τ and σ,

@@ -3,10 +3,12 @@
 //! at a pressure or a temperature.
 //!
 //! # How a call works
-//! A pressure is turned into the tables' variable with one logarithm (below
-//! p_sat(623.15 K) = 16.53 MPa) or one square root σ = √(pc − p) (above);
-//! one look-up gives the saturation temperature (or τ = √(Tc − T) near the
-//! critical point), and one more look-up gives the interval of the state
+//! A pressure needs no logarithm and no square root: the bit pattern of the
+//! f32 p (below p_sat(623.15 K) = 16.53 MPa) or of pc − p (above) numbers
+//! the interval of a table with a fixed number of intervals per octave of
+//! its input (eight with the default tables); one look-up gives the
+//! saturation temperature (or τ = √(Tc − T) near the critical point), and
+//! one more look-up gives the interval of the state
 //! table that every property of both phases shares. A temperature goes
 //! straight to the state table (through τ above 623.15 K) and needs one
 //! exponential for the pressure. There is no iteration and no search: the
@@ -133,22 +135,29 @@ enum Segment {
     High,
 }
 
-fn check_pressure(p_pa: f32) -> Result<(), SaturationError> {
-    // The unit types exclude NaN, so plain comparisons decide.
-    if p_pa < PRESSURE_MIN_PA {
-        return Err(SaturationError::PressureBelowRange {
-            pressure_pa: p_pa,
-            minimum_pa: PRESSURE_MIN_PA,
-        });
-    }
+/// The error for a pressure outside the tables (the rare path of
+/// [`line_at_pressure`]).
+#[cold]
+fn pressure_error(p_pa: f32) -> SaturationError {
     if p_pa > PRESSURE_MAX_PA {
-        return Err(SaturationError::PressureAboveRange {
+        SaturationError::PressureAboveRange {
             pressure_pa: p_pa,
             maximum_pa: PRESSURE_MAX_PA,
-        });
+        }
+    } else {
+        // Below the minimum, and the unit type's -0.0 (whose bit pattern is
+        // above every positive one).
+        SaturationError::PressureBelowRange {
+            pressure_pa: p_pa,
+            minimum_pa: PRESSURE_MIN_PA,
+        }
     }
-    Ok(())
 }
+
+const PRESSURE_MIN_BITS: u32 = PRESSURE_MIN_PA.to_bits();
+const PRESSURE_SPAN_BITS: u32 = PRESSURE_MAX_PA.to_bits() - PRESSURE_MIN_PA.to_bits();
+const BOUNDARY_PRESSURE_BITS: u32 = table::BOUNDARY_PRESSURE_PA.to_bits();
+const CRITICAL_PRESSURE_BITS: u32 = table::CRITICAL_PRESSURE_PA.to_bits();
 
 fn check_temperature(t_k: f32) -> Result<(), SaturationError> {
     if t_k < TEMPERATURE_MIN_K {
@@ -167,21 +176,42 @@ fn check_temperature(t_k: f32) -> Result<(), SaturationError> {
 }
 
 /// The point of the line at a pressure: segment, state-table variable, T.
+///
+/// No logarithm and no root: the temperature tables are indexed on the f32
+/// bit pattern of p (below the boundary) or of pc − p (above it), see
+/// [`crate::spline::OctaveCubicTable`].
 #[inline]
 fn line_at_pressure(p_pa: f32) -> Result<(Segment, f32, f32), SaturationError> {
-    check_pressure(p_pa)?;
-    if p_pa < table::BOUNDARY_PRESSURE_PA {
+    // Positive f32 values are ordered as their bit patterns read as
+    // unsigned integers, so integer compares (cheaper than float compares
+    // on a Cortex-M4F, and no soft-float calls on an M0/M3) check the range
+    // and pick the segment. One subtraction and one unsigned compare test
+    // both ends: below the minimum the difference wraps round to a huge
+    // number. NaN and negative patterns fail it too.
+    let bits = p_pa.to_bits();
+    if bits.wrapping_sub(PRESSURE_MIN_BITS) > PRESSURE_SPAN_BITS {
+        return Err(pressure_error(p_pa));
+    }
+    if bits < BOUNDARY_PRESSURE_BITS {
         let (c, t) = table::TEMPERATURE_LOW
-            .locate(libm::logf(p_pa))
+            .locate(p_pa)
             .ok_or(SaturationError::EmptyTable)?;
         let temperature_k = cubic(&c[0], t);
         Ok((Segment::Low, temperature_k, temperature_k))
     } else {
-        let sigma = libm::sqrtf(table::CRITICAL_PRESSURE_PA - p_pa);
-        let (c, t) = table::TEMPERATURE_HIGH
-            .locate(sigma)
-            .ok_or(SaturationError::EmptyTable)?;
-        let tau = at_least(cubic(&c[0], t), 0.0);
+        let tau = if bits < CRITICAL_PRESSURE_BITS {
+            // Exact in f32 (Sterbenz: p ≥ pc/2 here). Above 2^24 Pa an f32
+            // pressure is an even number of pascals, so q ≥ 2 Pa, where the
+            // table starts.
+            let q = table::CRITICAL_PRESSURE_PA - p_pa;
+            let (c, t) = table::TEMPERATURE_HIGH
+                .locate(q)
+                .ok_or(SaturationError::EmptyTable)?;
+            at_least(cubic(&c[0], t), 0.0)
+        } else {
+            // τ = 0 exactly at the critical pressure.
+            0.0
+        };
         Ok((
             Segment::High,
             tau,

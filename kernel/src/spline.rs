@@ -57,3 +57,53 @@ pub(crate) fn at_least(x: f32, floor: f32) -> f32 {
         floor
     }
 }
+
+/// A table of `P` quantities as cubics on intervals of the f32 bit pattern
+/// of the input: `2^(23 − shift)` intervals per octave (power of two) of
+/// the input, so every power of two is a knot.
+///
+/// For a positive finite f32 `x`, `x.to_bits()` is `(exponent << 23) |
+/// mantissa`, which grows monotonically with x, linearly inside each
+/// octave. Its top bits `x.to_bits() >> shift` number the interval (minus
+/// `first`, the number of the table's first interval) and the `shift` low
+/// bits, scaled to [0, 1), are the position t in it, linear in x. This is a
+/// logarithmic spacing without a logarithm: an integer shift, a subtraction,
+/// a mask and one conversion, the same few instructions for every input.
+/// On interval i, quantity q is `c[0] + c[1]·t + c[2]·t² + c[3]·t³` with
+/// `c = intervals[i][q]`.
+#[derive(Debug)]
+#[cfg_attr(feature = "defmt", derive(defmt::Format))]
+pub struct OctaveCubicTable<const P: usize> {
+    /// Low bits of the pattern that make up t (1 to 23).
+    pub shift: u32,
+    /// `x.to_bits() >> shift` at the table's first interval.
+    pub first: u32,
+    /// One block of `P` cubics per interval.
+    pub intervals: &'static [[[f32; 4]; P]],
+}
+
+impl<const P: usize> OctaveCubicTable<P> {
+    /// The interval holding `x` (a positive finite f32 inside the table) and
+    /// the position t in it, 0 ≤ t < 1.
+    ///
+    /// An input outside the table (below the first interval or past the
+    /// last) uses the last interval with t its position inside its own
+    /// octave: harmless, but meaningless, so the caller's range check must
+    /// keep inputs inside the table (the kernel's does). `None` only for an
+    /// empty table, which the generator never writes.
+    #[inline]
+    pub fn locate(&self, x: f32) -> Option<(&'static [[f32; 4]; P], f32)> {
+        let bits = x.to_bits();
+        let shift = self.shift & 31;
+        // Below `first` the difference wraps round to a huge index, so one
+        // clamp covers both ends.
+        let i = ((bits >> shift).wrapping_sub(self.first) as usize)
+            .min(self.intervals.len().saturating_sub(1));
+        // The low `shift` bits (< 2^23) convert to f32 exactly; the scale is
+        // the power of two 2^-shift, built from its exponent field.
+        let fraction = bits & ((1u32 << shift) - 1);
+        let scale = f32::from_bits((127 - shift) << 23);
+        let t = fraction as f32 * scale;
+        self.intervals.get(i).map(|block| (block, t))
+    }
+}

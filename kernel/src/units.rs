@@ -50,6 +50,19 @@ impl AbsolutePressure {
     /// [`UnitError::NotFinite`] for NaN or infinity,
     /// [`UnitError::NegativeAbsolutePressure`] below 0 Pa.
     pub fn from_pa(pa: f32) -> Result<Self, UnitError> {
+        // Every finite f32 with the sign bit clear has a bit pattern below
+        // that of +∞: one unsigned compare accepts them all (a float
+        // classification costs a few dozen instructions on a Cortex-M).
+        if pa.to_bits() < f32::INFINITY.to_bits() {
+            return Ok(Self { pa });
+        }
+        Self::from_pa_unusual(pa)
+    }
+
+    /// The rest of [`AbsolutePressure::from_pa`]: NaN, infinities, negative
+    /// values, and −0.0 (accepted, as 0.0 is).
+    #[cold]
+    fn from_pa_unusual(pa: f32) -> Result<Self, UnitError> {
         if !pa.is_finite() {
             return Err(UnitError::NotFinite { value: pa });
         }

@@ -162,7 +162,7 @@ fn a_narrow_envelope_gives_a_small_table_that_meets_the_accuracy_table() {
         temperature_min_k: 373.15,
         temperature_max_k: 473.15,
         state_intervals_low: 16,
-        temperature_intervals_low: 16,
+        temperature_octave_bits_low: 2,
         ..Config::default()
     };
     let (g, m) = fit_to_target(&base, 1.0, &Iapws97).unwrap();

@@ -8,10 +8,11 @@
 //! `vapora_tables::generator::Config` can be given with dashes for
 //! underscores, e.g. `--temperature-min-k 373.15 --temperature-max-k 473.15
 //! --state-intervals-low 16` for a small table covering 1 to 15.5 bar(a)
-//! only. With `--accuracy-target FACTOR` the interval counts become a
-//! starting point: they are scaled together until the generator's
-//! measurement meets FACTOR × the project's accuracy table (1 = the table),
-//! and the smallest passing table is written. The measured maxima go to
+//! only. With `--accuracy-target FACTOR` the interval counts and octave bits
+//! become a starting point: they are scaled (see
+//! `vapora_tables::generator::fit_to_target`) and the smallest table whose
+//! generator measurement meets FACTOR × the project's accuracy table (1 =
+//! the table) is written. The measured maxima go to
 //! standard error.
 //!
 //! The committed file is regenerated with

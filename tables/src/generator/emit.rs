@@ -10,7 +10,7 @@ use std::format;
 use std::string::String;
 
 use super::measure::{bound_from_measured, Measured, ZoneMaxima};
-use super::{Generated, Table};
+use super::{Generated, OctaveTable, Table};
 
 /// The command that regenerates the committed file, written into its header.
 pub const REGENERATE_COMMAND: &str =
@@ -72,6 +72,39 @@ fn table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &Table<P>) 
     out.push_str("    ],\n};\n\n");
 }
 
+fn octave_table<const P: usize>(out: &mut String, name: &str, doc: &str, t: &OctaveTable<P>) {
+    out.push_str(&format!("/// {doc}\n"));
+    out.push_str(&format!(
+        "/// {} intervals ({} per octave) × {P} cubics × 16 bytes = {} bytes.\n",
+        t.intervals.len(),
+        1u32 << (23 - t.shift),
+        t.size_bytes()
+    ));
+    out.push_str(&format!(
+        "pub static {name}: OctaveCubicTable<{P}> = OctaveCubicTable {{\n"
+    ));
+    out.push_str(&format!("    shift: {},\n", t.shift));
+    out.push_str(&format!("    first: {},\n", t.first));
+    out.push_str("    intervals: &[\n");
+    for (i, block) in t.intervals.iter().enumerate() {
+        out.push_str(&format!(
+            "        // interval {i}: from {}\n        [\n",
+            format_f32(t.knot(i) as f32)
+        ));
+        for c in block {
+            out.push_str(&format!(
+                "            [{}, {}, {}, {}],\n",
+                format_f32(c[0]),
+                format_f32(c[1]),
+                format_f32(c[2]),
+                format_f32(c[3])
+            ));
+        }
+        out.push_str("        ],\n");
+    }
+    out.push_str("    ],\n};\n\n");
+}
+
 fn accuracy(out: &mut String, name: &str, doc: &str, z: &ZoneMaxima, points: usize) {
     out.push_str(&format!("/// {doc}\n"));
     if points == 0 {
@@ -107,8 +140,8 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     let l = &g.limits;
     let mut body = String::new();
     body.push_str(
-        "//! The generated saturation tables: four uniform cubic-spline tables and\n\
-         //! the constants that define their variables, produced by `vapora-generate`\n\
+        "//! The generated saturation tables: four cubic-spline tables and the\n\
+         //! constants that define their variables, produced by `vapora-generate`\n\
          //! from the IAPWS-IF97 formulation in f64. Never edit by hand.\n\
          //!\n\
          //! Layout (see the `vapora_tables::generator` docs for why these variables):\n\
@@ -116,8 +149,11 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
          //! ln p (ln Pa), ρ' (kg/m³), ρ''/p (kg/(m³·Pa)), h', h'' (J/kg), s', s''\n\
          //! (J/(kg·K)), 1/cp', 1/cp'' (kg·K/J); [`STATE_LOW`] is indexed on T (K)\n\
          //! below 623.15 K, [`STATE_HIGH`] on τ = √(Tc − T) (√K). The temperature\n\
-         //! tables give T (K) from ln p below p_sat(623.15 K) ([`TEMPERATURE_LOW`])\n\
-         //! and τ from σ = √(pc − p) (√Pa) above it ([`TEMPERATURE_HIGH`]).\n",
+         //! tables give T (K) from p below p_sat(623.15 K) ([`TEMPERATURE_LOW`])\n\
+         //! and τ from q = pc − p (Pa) above it ([`TEMPERATURE_HIGH`]), both\n\
+         //! indexed on the f32 bit pattern of their input (intervals of equal\n\
+         //! width inside each octave, knots at the powers of two: no logarithm\n\
+         //! and no root), as cubic Hermite interpolants of the formulation.\n",
     );
     body.push_str(&format!(
         "//!\n//! Coefficient flash: {} bytes in total.\n",
@@ -132,7 +168,7 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
          //! checks the kernel against them on a denser grid plus random points.\n\n",
     );
     body.push_str(
-        "use crate::accuracy::SaturationAccuracy;\nuse crate::spline::UniformCubicTable;\n\n",
+        "use crate::accuracy::SaturationAccuracy;\nuse crate::spline::{OctaveCubicTable, UniformCubicTable};\n\n",
     );
     constant(
         &mut body,
@@ -143,7 +179,7 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
     constant(
         &mut body,
         "CRITICAL_PRESSURE_PA",
-        "Critical pressure 22.064 MPa as f32 (defines σ = √(pc − p)).",
+        "Critical pressure 22.064 MPa as f32 (defines q = pc − p).",
         l.critical_pressure_pa,
     );
     constant(
@@ -194,16 +230,16 @@ pub fn emit(g: &Generated, measured: &Measured) -> String {
         "Saturated state from 623.15 K, indexed on τ = √(Tc − T) (√K).",
         &g.state_high,
     );
-    table(
+    octave_table(
         &mut body,
         "TEMPERATURE_LOW",
-        "Saturation temperature T (K) below p_sat(623.15 K), indexed on ln p (ln Pa).",
+        "Saturation temperature T (K) below p_sat(623.15 K), indexed on the bit pattern of p (Pa).",
         &g.temperature_low,
     );
-    table(
+    octave_table(
         &mut body,
         "TEMPERATURE_HIGH",
-        "τ = √(Tc − T_sat) (√K) from p_sat(623.15 K), indexed on σ = √(pc − p) (√Pa).",
+        "τ = √(Tc − T_sat) (√K) from p_sat(623.15 K), indexed on the bit pattern of q = pc − p (Pa).",
         &g.temperature_high,
     );
     accuracy(

@@ -60,13 +60,12 @@ pub fn state_at_temperature(g: &Generated, t_k: f32) -> KernelState {
 pub fn state_at_pressure(g: &Generated, p_pa: f32) -> KernelState {
     let l = &g.limits;
     if p_pa < l.boundary_pressure_pa {
-        let [t] = g.temperature_low.evaluate(libm::logf(p_pa));
+        let [t] = g.temperature_low.evaluate(p_pa);
         finish(t, p_pa, &g.state_low.evaluate(t))
     } else {
-        let [tau] = g
-            .temperature_high
-            .evaluate(libm::sqrtf(l.critical_pressure_pa - p_pa));
-        let tau = tau.max(0.0);
+        let q = l.critical_pressure_pa - p_pa;
+        let [tau] = g.temperature_high.evaluate(q);
+        let tau = if q > 0.0 { tau.max(0.0) } else { 0.0 };
         finish(
             l.critical_temperature_k - tau * tau,
             p_pa,
@@ -249,8 +248,11 @@ pub fn measure<S: SaturationSource + ?Sized>(
             record(&state_at_temperature(g, t), f64::from(t))?;
         }
     }
-    // Pressure inputs: uniform in ln p below p_sat(623.15 K), in σ above.
-    let n = g.temperature_low.intervals.len() * m;
+    // Pressure inputs: uniform in ln p below p_sat(623.15 K), in ln(pc − p)
+    // above (the temperature tables' knots are nearly uniform in these; the
+    // grid has twice `m` points per interval on average, so at least `m` in
+    // the widest interval of an octave).
+    let n = g.temperature_low.intervals.len() * m * 2;
     let (lo, hi) = (
         f64::from(l.pressure_min_pa).ln(),
         f64::from(l.boundary_pressure_pa).ln(),
@@ -264,15 +266,15 @@ pub fn measure<S: SaturationSource + ?Sized>(
             )?;
         }
     }
-    let n = g.temperature_high.intervals.len() * m;
+    let n = g.temperature_high.intervals.len() * m * 2;
     let pc32 = f64::from(l.critical_pressure_pa);
-    let (s_lo, s_hi) = (
-        0.0,
-        (pc32 - f64::from(l.boundary_pressure_pa)).max(0.0).sqrt(),
+    let (q_lo, q_hi) = (
+        (pc32 - f64::from(l.pressure_max_pa)).max(2.0).ln(),
+        (pc32 - f64::from(l.boundary_pressure_pa)).max(4.0).ln(),
     );
     for k in 0..=n {
-        let s = s_lo + (s_hi - s_lo) * k as f64 / n as f64;
-        let p = (pc32 - s * s) as f32;
+        let q = (q_lo + (q_hi - q_lo) * k as f64 / n as f64).exp();
+        let p = (pc32 - q) as f32;
         if p >= l.pressure_min_pa && p <= l.pressure_max_pa {
             record(
                 &state_at_pressure(g, p),

@@ -3,26 +3,35 @@
 //!
 //! It samples a [`SaturationSource`] (the f64 IAPWS-IF97 formulation in
 //! normal use), fits least-squares cubic splines on uniform knots in
-//! transformed variables ([`fit`]), measures the error of the f32 tables
+//! transformed variables for the state tables ([`fit`]) and cubic Hermite
+//! interpolants on the f32 bit pattern for the temperature tables
+//! ([`OctaveTable`]), measures the error of the f32 tables
 //! evaluated exactly as the kernel evaluates them ([`measure`]), and emits
 //! the Rust source of `kernel/src/tables.rs` ([`emit`]).
 //!
 //! # The table layout (the contract with the kernel)
-//! Four uniform tables, each a list of intervals holding one cubic per
-//! tabulated quantity in the local variable t ∈ [0, 1]:
+//! Four tables, each a list of intervals holding one cubic per tabulated
+//! quantity in the local variable t ∈ [0, 1]. The state tables are uniform
+//! in their variable; the temperature tables are indexed on the f32 bit
+//! pattern of theirs (2^`temperature_octave_bits_*` equal intervals per
+//! octave, knots on the powers of two: a logarithmic spacing that costs no
+//! logarithm):
 //!
 //! | table | independent variable | range | quantities |
 //! |---|---|---|---|
 //! | state, low | T, K | T_min … 623.15 K | ln p, ρ', ρ''/p, h', h'', s', s'', 1/cp', 1/cp'' |
 //! | state, high | τ = √(Tc − T), √K | 0 … √(Tc − 623.15 K) | same |
-//! | temperature, low | ln p, ln Pa | ln p_min … ln p_sat(623.15 K) | T |
-//! | temperature, high | σ = √(pc − p), √Pa | 0 … √(pc − p_sat(623.15 K)) | τ |
+//! | temperature, low | bit pattern of p, Pa | p_min … p_sat(623.15 K) | T |
+//! | temperature, high | bit pattern of q = pc − p, Pa | 2 Pa … pc − p_sat(623.15 K) | τ |
 //!
 //! Why these variables: along the saturation line of IF97's Region 3 (an
 //! analytic equation of state) the densities, enthalpies and entropies behave
 //! like a + b·√(Tc − T) near the critical point, so in τ they are smooth
-//! polynomials; pc − p is nearly proportional to Tc − T, so σ does the same
-//! for pressure inputs. ln p is nearly linear in T (Clausius–Clapeyron),
+//! polynomials. For pressure inputs pc − p is nearly proportional to Tc − T,
+//! so τ ≈ c·√q, which on one octave of q (a factor of two) is as smooth as
+//! √ on [1, 2]: the octave spacing resolves it down to the last pascals
+//! below pc without a square root. Below 16.53 MPa T(p) is smooth in ln p,
+//! which the octave spacing follows. ln p is nearly linear in T (Clausius–Clapeyron),
 //! ρ''/p is nearly 1/(R T) (ideal gas at low pressure) and 1/cp stays finite
 //! where cp diverges at the critical point. The break at 623.15 K is where
 //! the formulation hands over from Regions 1 and 2 to Region 3 and its
@@ -61,12 +70,12 @@ pub struct Config {
     pub state_intervals_low: usize,
     /// Intervals of the state table from 623.15 K up (uniform in τ).
     pub state_intervals_high: usize,
-    /// Intervals of the saturation-temperature table below p_sat(623.15 K)
-    /// (uniform in ln p).
-    pub temperature_intervals_low: usize,
-    /// Intervals of the saturation-temperature table from p_sat(623.15 K)
-    /// up (uniform in σ).
-    pub temperature_intervals_high: usize,
+    /// The saturation-temperature table below p_sat(623.15 K) has
+    /// 2^`temperature_octave_bits_low` intervals per octave of p (0 to 12).
+    pub temperature_octave_bits_low: u32,
+    /// The table from p_sat(623.15 K) up has 2^`temperature_octave_bits_high`
+    /// intervals per octave of pc − p (0 to 12).
+    pub temperature_octave_bits_high: u32,
     /// Fitting samples inside each interval (plus the knots).
     pub samples_per_interval: usize,
     /// Measuring points per interval for the accuracy bounds (≥ 50 by the
@@ -84,8 +93,8 @@ impl Default for Config {
             temperature_max_k: 647.096,
             state_intervals_low: 48,
             state_intervals_high: 48,
-            temperature_intervals_low: 40,
-            temperature_intervals_high: 16,
+            temperature_octave_bits_low: 3,
+            temperature_octave_bits_high: 3,
             samples_per_interval: 12,
             measurement_points_per_interval: 64,
             critical_margin_k: 0.01,
@@ -98,14 +107,14 @@ impl Config {
     pub fn describe(&self) -> String {
         format!(
             "temperature_min_k={} temperature_max_k={} state_intervals_low={} state_intervals_high={} \
-             temperature_intervals_low={} temperature_intervals_high={} samples_per_interval={} \
+             temperature_octave_bits_low={} temperature_octave_bits_high={} samples_per_interval={} \
              measurement_points_per_interval={} critical_margin_k={}",
             self.temperature_min_k,
             self.temperature_max_k,
             self.state_intervals_low,
             self.state_intervals_high,
-            self.temperature_intervals_low,
-            self.temperature_intervals_high,
+            self.temperature_octave_bits_low,
+            self.temperature_octave_bits_high,
             self.samples_per_interval,
             self.measurement_points_per_interval,
             self.critical_margin_k
@@ -140,13 +149,14 @@ impl Config {
         let bad = || GenerateError::Config(format!("bad value {value} for {key}"));
         let float = || value.parse::<f64>().map_err(|_| bad());
         let count = || value.parse::<usize>().map_err(|_| bad());
+        let bits = || value.parse::<u32>().map_err(|_| bad());
         match key {
             "temperature_min_k" => self.temperature_min_k = float()?,
             "temperature_max_k" => self.temperature_max_k = float()?,
             "state_intervals_low" => self.state_intervals_low = count()?,
             "state_intervals_high" => self.state_intervals_high = count()?,
-            "temperature_intervals_low" => self.temperature_intervals_low = count()?,
-            "temperature_intervals_high" => self.temperature_intervals_high = count()?,
+            "temperature_octave_bits_low" => self.temperature_octave_bits_low = bits()?,
+            "temperature_octave_bits_high" => self.temperature_octave_bits_high = bits()?,
             "samples_per_interval" => self.samples_per_interval = count()?,
             "measurement_points_per_interval" => self.measurement_points_per_interval = count()?,
             "critical_margin_k" => self.critical_margin_k = float()?,
@@ -254,10 +264,10 @@ pub struct Generated {
     pub state_low: Table<STATE_QUANTITIES>,
     /// State table from 623.15 K (variable τ).
     pub state_high: Table<STATE_QUANTITIES>,
-    /// Saturation temperature below p_sat(623.15 K) (variable ln p, value T).
-    pub temperature_low: Table<1>,
-    /// Above p_sat(623.15 K) (variable σ, value τ).
-    pub temperature_high: Table<1>,
+    /// Saturation temperature below p_sat(623.15 K) (bit pattern of p, value T).
+    pub temperature_low: OctaveTable<1>,
+    /// From p_sat(623.15 K) (bit pattern of q = pc − p, value τ).
+    pub temperature_high: OctaveTable<1>,
 }
 
 impl Generated {
@@ -340,17 +350,17 @@ pub fn generate<S: SaturationSource + ?Sized>(
             "need 273.16 <= temperature_min_k < temperature_max_k <= 647.096".into(),
         ));
     }
-    if [
-        c.state_intervals_low,
-        c.state_intervals_high,
-        c.temperature_intervals_low,
-        c.temperature_intervals_high,
-    ]
-    .contains(&0)
-    {
+    if [c.state_intervals_low, c.state_intervals_high].contains(&0) {
         return Err(GenerateError::Config(
             "every interval count must be at least 1".into(),
         ));
+    }
+    if c.temperature_octave_bits_low > MAX_OCTAVE_BITS
+        || c.temperature_octave_bits_high > MAX_OCTAVE_BITS
+    {
+        return Err(GenerateError::Config(format!(
+            "temperature_octave_bits_low and _high must be at most {MAX_OCTAVE_BITS}"
+        )));
     }
     if c.samples_per_interval < 4 || c.measurement_points_per_interval < 50 {
         return Err(GenerateError::Config(
@@ -447,58 +457,31 @@ pub fn generate<S: SaturationSource + ?Sized>(
         )
     };
 
-    // Saturation temperature, low: ln p → T.
+    // Saturation temperature, low: p → T, on the bit pattern of p.
     let temperature_low = if low_in_envelope {
-        let p_lo = source.saturation_pressure_pa(low_lo);
+        let p_lo = f64::from(limits.pressure_min_pa);
         let p_hi = source.saturation_pressure_pa(low_hi);
-        let knots = UniformKnots::covering(p_lo.ln(), p_hi.ln(), c.temperature_intervals_low)?;
-        let xs = fit::sample_positions(&knots, c.samples_per_interval, p_lo.ln(), p_hi.ln());
-        let values: Vec<[f64; 1]> = xs
-            .iter()
-            .map(|&lnp| [source.saturation_temperature_k(lnp.exp())])
-            .collect();
-        fit_table(knots, &xs, &values)?
+        hermite_octave_table(c.temperature_octave_bits_low, p_lo, p_hi, |p| {
+            source.saturation_temperature_k(p)
+        })?
     } else {
-        let knots = UniformKnots::covering(pb.ln() - 0.1, pb.ln(), 1)?;
-        Table {
-            knots,
-            intervals: vec![[[tb as f32, 0.0, 0.0, 0.0]]],
-        }
+        OctaveTable::constant(pb as f32, tb as f32)
     };
 
-    // Saturation temperature, high: σ = √(pc − p) → τ.
-    let sigma_of = |p: f64| (f64::from(pc32) - p).max(0.0).sqrt();
+    // Saturation temperature, high: q = pc − p → τ = √(Tc − T), on the bit
+    // pattern of q. Above 2^24 Pa every f32 pressure is an even number of
+    // pascals, so q (exact in f32) is 0 or at least 2 Pa: the table starts
+    // at 2 Pa and the kernel sets τ = 0 at q = 0. The Region 4 equation is
+    // closed-form and smooth up to pc, so it is sampled right up to there.
+    let pc_f = f64::from(pc32);
     let temperature_high = if high_in_envelope {
-        let p_hi = if high_t_hi >= tc {
-            pc
-        } else {
-            source.saturation_pressure_pa(high_t_hi)
-        };
-        let p_lo = source.saturation_pressure_pa(high_t_lo);
-        let p_data_hi = source.saturation_pressure_pa(high_data_top);
-        let knots =
-            UniformKnots::covering(sigma_of(p_hi), sigma_of(p_lo), c.temperature_intervals_high)?;
-        let xs = fit::sample_positions(
-            &knots,
-            c.samples_per_interval,
-            sigma_of(p_data_hi),
-            sigma_of(p_lo),
-        );
-        let values: Vec<[f64; 1]> = xs
-            .iter()
-            .map(|&s| {
-                [tau_of(
-                    source.saturation_temperature_k(f64::from(pc32) - s * s),
-                )]
-            })
-            .collect();
-        fit_table(knots, &xs, &values)?
+        let q_lo = (pc_f - f64::from(limits.pressure_max_pa)).max(2.0);
+        let q_hi = pc_f - source.saturation_pressure_pa(high_t_lo);
+        hermite_octave_table(c.temperature_octave_bits_high, q_lo, q_hi, |q| {
+            tau_of(source.saturation_temperature_k(pc_f - q))
+        })?
     } else {
-        let knots = UniformKnots::covering(sigma_of(pb) - 1.0, sigma_of(pb), 1)?;
-        Table {
-            knots,
-            intervals: vec![[[tau_of(tb) as f32, 0.0, 0.0, 0.0]]],
-        }
+        OctaveTable::constant((pc_f - pb) as f32, tau_of(tb) as f32)
     };
 
     Ok(Generated {
@@ -509,6 +492,119 @@ pub fn generate<S: SaturationSource + ?Sized>(
         temperature_low,
         temperature_high,
     })
+}
+
+/// Largest octave subdivision accepted (2^12 intervals per octave).
+pub const MAX_OCTAVE_BITS: u32 = 12;
+
+/// A table on the f32 bit pattern of its input (see the kernel's
+/// `OctaveCubicTable`): interval `(x.to_bits() >> shift) − first`, local t
+/// the low `shift` bits scaled to [0, 1).
+#[derive(Debug, Clone, PartialEq)]
+pub struct OctaveTable<const P: usize> {
+    /// Low bits of the pattern that make up t.
+    pub shift: u32,
+    /// `x.to_bits() >> shift` of the first interval.
+    pub first: u32,
+    /// `intervals[i][q]` is the cubic of quantity `q` on interval `i`.
+    pub intervals: Vec<[[f32; 4]; P]>,
+}
+
+impl<const P: usize> OctaveTable<P> {
+    /// Evaluates every quantity at `x` (positive, finite) as the kernel does.
+    pub fn evaluate(&self, x: f32) -> [f32; P] {
+        let bits = x.to_bits();
+        let i = ((bits >> self.shift).wrapping_sub(self.first) as usize)
+            .min(self.intervals.len().saturating_sub(1));
+        let t =
+            (bits & ((1u32 << self.shift) - 1)) as f32 * f32::from_bits((127 - self.shift) << 23);
+        let mut out = [f32::NAN; P];
+        if let Some(block) = self.intervals.get(i) {
+            for (o, c) in out.iter_mut().zip(block) {
+                *o = c[0] + t * (c[1] + t * (c[2] + t * c[3]));
+            }
+        }
+        out
+    }
+
+    /// Lower end of interval `i` (`i` up to the interval count: the last
+    /// knot), in the input variable.
+    pub fn knot(&self, i: usize) -> f64 {
+        f64::from(f32::from_bits((self.first + i as u32) << self.shift))
+    }
+
+    /// Flash taken by the coefficients, bytes.
+    pub fn size_bytes(&self) -> usize {
+        self.intervals.len() * P * 4 * 4
+    }
+
+    /// One interval holding the constant `value`, at `x` (for a segment
+    /// outside the envelope, never reached).
+    fn constant(x: f32, value: f32) -> Self {
+        let mut block = [[0.0f32; 4]; P];
+        for b in &mut block {
+            b[0] = value;
+        }
+        Self {
+            shift: 20,
+            first: x.to_bits() >> 20,
+            intervals: vec![block],
+        }
+    }
+}
+
+/// Cubic Hermite interpolation of `f` on the bit-pattern intervals with
+/// 2^`octave_bits` intervals per octave covering `[x_lo, x_hi]` (x_lo > 0):
+/// each cubic takes f and its derivative at both knots, so the table passes
+/// through the formulation's values at the knots and is continuous with a
+/// continuous first derivative in x (the kernel's t is linear in x inside an
+/// interval; dt/dx halves from one octave to the next, which the derivative
+/// at each end takes into account).
+fn hermite_octave_table(
+    octave_bits: u32,
+    x_lo: f64,
+    x_hi: f64,
+    f: impl Fn(f64) -> f64,
+) -> Result<OctaveTable<1>, GenerateError> {
+    let shift = 23 - octave_bits;
+    let lo = round_down_f32(x_lo);
+    let hi = round_up_f32(x_hi);
+    if !(lo > 0.0 && hi > lo && hi.is_finite()) {
+        return Err(GenerateError::Config(format!(
+            "bad octave-table range {x_lo} to {x_hi}"
+        )));
+    }
+    let first = lo.to_bits() >> shift;
+    let last = hi.to_bits() >> shift;
+    let mut table = OctaveTable {
+        shift,
+        first,
+        intervals: Vec::new(),
+    };
+    // Derivative by a fourth-order central difference, step 1e-3 of x.
+    let derivative = |x: f64| {
+        let h = x * 1e-3;
+        (8.0 * (f(x + h) - f(x - h)) - (f(x + 2.0 * h) - f(x - 2.0 * h))) / (12.0 * h)
+    };
+    for i in 0..=(last - first) as usize {
+        let (a, b) = (table.knot(i), table.knot(i + 1));
+        let (ya, yb) = (f(a), f(b));
+        let (ma, mb) = (derivative(a) * (b - a), derivative(b) * (b - a));
+        let c = [
+            ya,
+            ma,
+            3.0 * (yb - ya) - 2.0 * ma - mb,
+            2.0 * (ya - yb) + ma + mb,
+        ];
+        if c.iter().any(|v| !v.is_finite()) {
+            return Err(GenerateError::Source {
+                at: a,
+                message: "non-finite value or derivative".into(),
+            });
+        }
+        table.intervals.push([fit::to_f32(&[c])[0]]);
+    }
+    Ok(table)
 }
 
 /// Smallest f32 not below `x`.
@@ -543,13 +639,17 @@ fn round_down_f32(x: f64) -> f32 {
 
 /// Generates the smallest table of a family that meets the project's
 /// accuracy table scaled by `factor` (1.0 = the table itself, 0.5 = twice as
-/// strict) over the envelope of `base`: the four interval counts of `base`
-/// are scaled together by 1/4, 1/3, 1/2, 2/3, 1, 3/2, 2, 3, 4 and the first
-/// that passes the generator's measurement is returned.
+/// strict) over the envelope of `base`: the two state-table interval counts
+/// of `base` are scaled together by 1/4, 1/3, 1/2, 2/3, 1, 3/2, 2, 3, 4, and
+/// for each scale the two temperature tables' octave bits are tried from
+/// two below to two above those of `base` (they set the temperature error,
+/// the interval counts the state error, so the two are searched
+/// independently); of the candidates that pass the generator's measurement
+/// the one with the fewest coefficient bytes is returned.
 ///
 /// # Errors
-/// [`GenerateError::Config`] when even the largest scale misses the target,
-/// and the errors of [`generate`].
+/// [`GenerateError::Config`] when no candidate meets the target, and the
+/// errors of [`generate`].
 pub fn fit_to_target<S: SaturationSource + ?Sized>(
     base: &Config,
     factor: f64,
@@ -566,26 +666,38 @@ pub fn fit_to_target<S: SaturationSource + ?Sized>(
         (3, 1),
         (4, 1),
     ];
+    let mut best: Option<(Generated, measure::Measured)> = None;
     for (num, den) in SCALES {
         let scale = |n: usize| (n * num).div_ceil(den).max(1);
-        let config = Config {
-            state_intervals_low: scale(base.state_intervals_low),
-            state_intervals_high: scale(base.state_intervals_high),
-            temperature_intervals_low: scale(base.temperature_intervals_low),
-            temperature_intervals_high: scale(base.temperature_intervals_high),
-            ..base.clone()
-        };
-        let g = generate(&config, source)?;
-        let m = measure::measure(&g, source)?;
-        if m.below_near_critical
-            .within(&measure::ACCURACY_TABLE_BELOW_NEAR_CRITICAL, factor)
-            && m.near_critical
-                .within(&measure::ACCURACY_TABLE_NEAR_CRITICAL, factor)
-        {
-            return Ok((g, m));
+        for offset in -2i64..=2 {
+            let bits = |b: u32| (i64::from(b) + offset).clamp(0, i64::from(MAX_OCTAVE_BITS)) as u32;
+            let config = Config {
+                state_intervals_low: scale(base.state_intervals_low),
+                state_intervals_high: scale(base.state_intervals_high),
+                temperature_octave_bits_low: bits(base.temperature_octave_bits_low),
+                temperature_octave_bits_high: bits(base.temperature_octave_bits_high),
+                ..base.clone()
+            };
+            let g = generate(&config, source)?;
+            if best
+                .as_ref()
+                .is_some_and(|(b, _)| b.size_bytes() <= g.size_bytes())
+            {
+                continue;
+            }
+            let m = measure::measure(&g, source)?;
+            if m.below_near_critical
+                .within(&measure::ACCURACY_TABLE_BELOW_NEAR_CRITICAL, factor)
+                && m.near_critical
+                    .within(&measure::ACCURACY_TABLE_NEAR_CRITICAL, factor)
+            {
+                best = Some((g, m));
+            }
         }
     }
-    Err(GenerateError::Config(format!(
-        "no interval count up to 4x the given ones meets {factor} x the accuracy table"
-    )))
+    best.ok_or_else(|| {
+        GenerateError::Config(format!(
+            "no interval count up to 4x the given ones meets {factor} x the accuracy table"
+        ))
+    })
 }
