@@ -12,9 +12,6 @@
 #      tools/qemu-insn-count/markcount.c.
 #   4. llvm-nm and llvm-size: rustup's llvm-tools, else Debian's llvm, else
 #      binutils-arm-none-eabi.
-#   5. defmt-print (the host decoder of defmt frames): `cargo install
-#      defmt-print --locked` from crates.io, about 2 minutes the first time;
-#      if that fails, the firmware tests skip decoding (and say so).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 root=$PWD
@@ -116,23 +113,6 @@ if [ -z "$nm" ]; then
   fi
 fi
 
-# --- 5. defmt decoder ---------------------------------------------------------------
-# The 1.x decoder reads the frames of defmt 1.x (the firmware's defmt-log binary).
-defmt_print=$(command -v defmt-print || true)
-if [ -z "$defmt_print" ] && [ -x "$HOME/.cargo/bin/defmt-print" ]; then
-  defmt_print=$HOME/.cargo/bin/defmt-print
-fi
-if [ -z "$defmt_print" ]; then
-  say "cargo install defmt-print@1 --locked (about 2 minutes, timeout 600 s)"
-  if (unset CARGO_TARGET_DIR RUSTC RUSTC_BOOTSTRAP RUSTFLAGS; cd /tmp &&
-    timeout 600 cargo install defmt-print@1 --locked --quiet); then
-    defmt_print=$(command -v defmt-print || echo "$HOME/.cargo/bin/defmt-print")
-  else
-    say "could not install defmt-print: the defmt log will be built but not decoded"
-    defmt_print=""
-  fi
-fi
-
 # --- env file --------------------------------------------------------------------
 {
   echo "# Written by scripts/cross-setup.sh; sourced by the firmware scripts."
@@ -141,7 +121,6 @@ fi
   echo "VAPORA_PLUGIN=$plugin"
   echo "VAPORA_NM=$nm"
   echo "VAPORA_SIZE=$size"
-  echo "VAPORA_DEFMT_PRINT=$defmt_print"
   echo "VAPORA_FIRMWARE_TARGET_DIR=$root/firmware-example/target"
   echo "VAPORA_TARGETS=\"${targets[*]}\""
   if [ "$path" = rustup ]; then
@@ -162,5 +141,5 @@ fi
 } >"$env_file"
 
 say "targets via $path; qemu $("$qemu" --version | head -n1 | sed 's/QEMU emulator version //')"
-say "plugin $plugin; nm $nm; defmt-print ${defmt_print:-none}"
+say "plugin $plugin; nm $nm"
 say "wrote $env_file"

@@ -14,8 +14,9 @@
 #      on the host) recomputed on the device; checks that the M4F images
 #      contain no fused multiply-add, and that a flipped bit is caught,
 #   8. builds the defmt-log binary (the kernel's types logged with defmt) on
-#      each core, runs it and decodes its frames with defmt-print; the three
-#      cores must log the same text,
+#      each core, runs it and decodes its frames with defmt-print (installed
+#      with cargo install if missing, about 2 minutes once); the three cores
+#      must log the same text,
 #   9. runs the cost measurement (target/cost/*.csv).
 # Any failure stops the script with a non-zero status.
 set -euo pipefail
@@ -132,32 +133,44 @@ step "defmt log on every core, decoded on the host"
 for t in "${targets[@]}"; do
   fw_cargo build --quiet --release --target "$t" --bin defmt-log --features defmt-log
 done
-if [ -n "${VAPORA_DEFMT_PRINT:-}" ]; then
-  for t in "${targets[@]}"; do
-    status=0
-    VAPORA_QEMU_TIMEOUT=60 fw_cargo run --quiet --release --target "$t" --bin defmt-log \
-      --features defmt-log >"$out/$t-defmt.bin" || status=$?
-    # Decoded lines only (no timestamps or locations), so cores compare.
-    "$VAPORA_DEFMT_PRINT" --log-format '{L} {s}' -e "$VAPORA_FIRMWARE_TARGET_DIR/$t/release/defmt-log" \
-      <"$out/$t-defmt.bin" >"$out/$t-defmt.txt" 2>"$out/$t-defmt.err" || true
-    if [ "$status" != 0 ] || ! grep -q "end result=pass" "$out/$t-defmt.txt"; then
-      cat "$out/$t-defmt.txt" "$out/$t-defmt.err"
-      echo "firmware: defmt-log failed on $t (exit status $status)" >&2
-      exit 1
-    fi
-  done
-  cat "$out/${targets[0]}-defmt.txt"
-  for t in "${targets[@]:1}"; do
-    grep -v 'begin firmware' "$out/${targets[0]}-defmt.txt" >"$out/defmt-reference.txt"
-    if ! grep -v 'begin firmware' "$out/$t-defmt.txt" | diff -u "$out/defmt-reference.txt" -; then
-      echo "firmware: $t logged different results from ${targets[0]}" >&2
-      exit 1
-    fi
-  done
-  echo "decoded and identical on ${targets[*]}"
-else
-  echo "SKIPPED decoding: defmt-print is not installed (scripts/cross-setup.sh could not install it)"
+# The host decoder, installed here rather than in cross-setup.sh so that
+# the quick start (scripts/run-firmware.sh) does not wait for it. The 1.x
+# decoder reads the frames of defmt 1.x.
+defmt_print=$(command -v defmt-print || true)
+[ -n "$defmt_print" ] || [ ! -x "$HOME/.cargo/bin/defmt-print" ] || defmt_print=$HOME/.cargo/bin/defmt-print
+if [ -z "$defmt_print" ]; then
+  echo "cargo install defmt-print --version '^1' --locked (about 2 minutes, once)"
+  (
+    # A host build: none of the firmware's cargo settings.
+    unset CARGO_TARGET_DIR RUSTC RUSTC_BOOTSTRAP
+    cd /tmp && timeout 900 cargo install defmt-print --version '^1' --locked --quiet
+  )
+  defmt_print=$(command -v defmt-print || echo "$HOME/.cargo/bin/defmt-print")
 fi
+VAPORA_DEFMT_PRINT=$defmt_print
+"$VAPORA_DEFMT_PRINT" --version
+for t in "${targets[@]}"; do
+  status=0
+  VAPORA_QEMU_TIMEOUT=60 fw_cargo run --quiet --release --target "$t" --bin defmt-log \
+    --features defmt-log >"$out/$t-defmt.bin" || status=$?
+  # Decoded lines only (no timestamps or locations), so cores compare.
+  "$VAPORA_DEFMT_PRINT" --log-format '{L} {s}' -e "$VAPORA_FIRMWARE_TARGET_DIR/$t/release/defmt-log" \
+    <"$out/$t-defmt.bin" >"$out/$t-defmt.txt" 2>"$out/$t-defmt.err" || true
+  if [ "$status" != 0 ] || ! grep -q "end result=pass" "$out/$t-defmt.txt"; then
+    cat "$out/$t-defmt.txt" "$out/$t-defmt.err"
+    echo "firmware: defmt-log failed on $t (exit status $status)" >&2
+    exit 1
+  fi
+done
+cat "$out/${targets[0]}-defmt.txt"
+for t in "${targets[@]:1}"; do
+  grep -v 'begin firmware' "$out/${targets[0]}-defmt.txt" >"$out/defmt-reference.txt"
+  if ! grep -v 'begin firmware' "$out/$t-defmt.txt" | diff -u "$out/defmt-reference.txt" -; then
+    echo "firmware: $t logged different results from ${targets[0]}" >&2
+    exit 1
+  fi
+done
+echo "decoded and identical on ${targets[*]}"
 
 step "cost measurement"
 scripts/measure-cost.sh "${targets[@]}"

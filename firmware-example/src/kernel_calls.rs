@@ -19,7 +19,7 @@ use vapora_kernel::saturation::{
     saturated_state_at_temperature, saturation_pressure, saturation_temperature, SaturatedProperty,
     SaturatedState,
 };
-use vapora_kernel::spline::{cubic, UniformCubicTable};
+use vapora_kernel::spline::cubic;
 use vapora_kernel::tables::saturation::{STATE_LOW, TEMPERATURE_LOW};
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
@@ -246,10 +246,10 @@ fn temperature_out(r: Result<Temperature, UnitError>) -> Output {
     r.map_or_else(unit_code, |t| Output::ok(&[t.as_kelvin()]))
 }
 
-/// `table.locate(x)` and `cubic` on every quantity of the interval found:
-/// t, then the P values; status 0x501 for an empty table.
-fn locate_and_evaluate<const P: usize>(table: &UniformCubicTable<P>, x: f32) -> Output {
-    match table.locate(x) {
+/// A table's `locate(x)` result, and `cubic` on every quantity of the
+/// interval found: t, then the P values; status 0x501 for an empty table.
+fn evaluate_located<const P: usize>(located: Option<(&[[f32; 4]; P], f32)>) -> Output {
+    match located {
         None => Output::new(&[0x501]),
         Some((block, t)) => {
             let mut out = Output::ok(&[t]);
@@ -399,11 +399,11 @@ pub const CALLS: &[KernelCall] = &[
     // --- spline evaluation on the generated tables ---
     KernelCall {
         name: "UniformCubicTable::locate,cubic(STATE_LOW,T)",
-        eval: |x| locate_and_evaluate(&STATE_LOW, x[0]),
+        eval: |x| evaluate_located(STATE_LOW.locate(x[0])),
     },
     KernelCall {
-        name: "UniformCubicTable::locate,cubic(TEMPERATURE_LOW,ln_p)",
-        eval: |x| locate_and_evaluate(&TEMPERATURE_LOW, x[0]),
+        name: "OctaveCubicTable::locate,cubic(TEMPERATURE_LOW,p)",
+        eval: |x| evaluate_located(TEMPERATURE_LOW.locate(x[0])),
     },
     // --- units ---
     KernelCall {

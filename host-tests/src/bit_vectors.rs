@@ -282,11 +282,13 @@ fn inputs_of(call: &KernelCall) -> Vec<[f32; 2]> {
         ),
         "wet_steam_at_pressure" => mixture(pressures_2d()),
         "wet_steam_at_temperature" => mixture(temperatures_2d()),
-        "UniformCubicTable::locate,cubic" if name.contains("STATE_LOW") => single(temperatures),
-        "UniformCubicTable::locate,cubic" => single(
-            pressures
-                .iter()
-                .map(|&p| if p > 0.0 { p.ln() } else { p })
+        "UniformCubicTable::locate,cubic" => single(temperatures),
+        // Inside the table only: outside it the position is documented as
+        // meaningless (the callers' range checks keep inputs inside).
+        "OctaveCubicTable::locate,cubic" => single(
+            pressure_sweep(64)
+                .into_iter()
+                .filter(|&p| p < vapora_kernel::tables::saturation::BOUNDARY_PRESSURE_PA)
                 .collect(),
         ),
         "AbsolutePressure::from_gauge" => pairs(&gauge, &ambient),
