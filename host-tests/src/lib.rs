@@ -4,4 +4,6 @@
 
 pub mod accuracy;
 pub mod bit_vectors;
+pub mod regress;
+pub mod report;
 pub mod tolerance;
