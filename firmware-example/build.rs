@@ -19,6 +19,11 @@ fn main() {
     fs::copy(&source, out.join("memory.x")).expect("copy memory.x into OUT_DIR");
     println!("cargo:rustc-link-search={}", out.display());
     println!("cargo:rustc-env=VAPORA_BOARD={board}");
+    // defmt's linker script, for the one binary that logs with defmt (other
+    // binaries have no defmt symbols, and the script would fail their link).
+    if env::var_os("CARGO_FEATURE_DEFMT_LOG").is_some() {
+        println!("cargo:rustc-link-arg-bin=defmt-log=-Tdefmt.x");
+    }
     println!("cargo:rerun-if-changed={}", source.display());
     println!("cargo:rerun-if-changed=build.rs");
 }

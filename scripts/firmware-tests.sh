@@ -7,7 +7,17 @@
 #      it must exit with success and end with `end result=pass`,
 #   4. checks that the three cores printed the same results, digit for digit,
 #   5. checks that a deliberately failing build does fail (the harness can fail),
-#   6. runs the cost measurement (target/cost/*.csv).
+#   6. checks the printed steam figures against the f64 formulation
+#      (host-tests/tests/firmware_output.rs),
+#   7. runs the bit-identity test on each core: every vector of
+#      firmware-example/vectors/kernel-bits.bin (the kernel's exact f32 bits
+#      on the host) recomputed on the device; checks that the M4F images
+#      contain no fused multiply-add, and that a flipped bit is caught,
+#   8. builds the defmt-log binary (the kernel's types logged with defmt) on
+#      each core, runs it and decodes its frames with defmt-print (installed
+#      with cargo install if missing, about 2 minutes once); the three cores
+#      must log the same text,
+#   9. runs the cost measurement (target/cost/*.csv).
 # Any failure stops the script with a non-zero status.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -26,7 +36,7 @@ if [ "$VAPORA_CROSS_PATH" = rustup ] && cargo fmt --version >/dev/null 2>&1 &&
   cargo clippy --version >/dev/null 2>&1; then
   step "fmt and clippy (warnings denied)"
   (cd firmware-example && cargo fmt -- --check)
-  fw_cargo clippy --release --target thumbv7em-none-eabihf --bins --lib -- -D warnings
+  fw_cargo clippy --release --target thumbv7em-none-eabihf --bins --lib --features defmt-log -- -D warnings
 else
   step "fmt and clippy skipped (not available with the $VAPORA_CROSS_PATH toolchain)"
 fi
@@ -70,6 +80,97 @@ if [ "$status" = 0 ] || ! grep -qx "end result=fail" "$out/$check-must-fail.txt"
   exit 1
 fi
 echo "exit status $status, as it must be"
+
+step "printed results against the f64 formulation (host test)"
+(
+  # Host build: the host target dir and compiler, not the firmware's.
+  export CARGO_TARGET_DIR=$VAPORA_HOST_TARGET_DIR
+  unset RUSTC RUSTC_BOOTSTRAP
+  VAPORA_FIRMWARE_OUTPUT=$PWD/$out cargo test --workspace --all-features --test firmware_output -- --ignored --nocapture
+)
+
+for t in "${targets[@]}"; do
+  step "bit identity with the host on $t"
+  status=0
+  VAPORA_QEMU_TIMEOUT=120 fw_cargo run --quiet --release --target "$t" --bin bit-identity \
+    >"$out/$t-bit-identity.txt" || status=$?
+  grep -v '^function ' "$out/$t-bit-identity.txt"
+  if [ "$status" != 0 ] || ! grep -qx "end result=pass" "$out/$t-bit-identity.txt"; then
+    echo "firmware: $t does not reproduce the host's bits (exit status $status); see $out/$t-bit-identity.txt" >&2
+    exit 1
+  fi
+done
+
+step "no fused multiply-add in the M4F images"
+# vmla/vmls on the M4F round the product before adding (as separate
+# instructions would); the fused vfma/vfms/vfnma/vfnms round once, which
+# the host build does not do. Rust does not contract a*b+c by default;
+# this checks that it stays so.
+objdump=$(dirname "$VAPORA_NM")/llvm-objdump
+if [ -x "$objdump" ]; then
+  for bin in bit-identity steam-header-monitor; do
+    fused=$("$objdump" -d "$VAPORA_FIRMWARE_TARGET_DIR/thumbv7em-none-eabihf/release/$bin" |
+      grep -ciE $'\t(vfma|vfms|vfnma|vfnms)\.' || true)
+    echo "$bin: $fused fused multiply-add instructions"
+    [ "$fused" = 0 ] || exit 1
+  done
+else
+  echo "skipped: no llvm-objdump beside $VAPORA_NM"
+fi
+
+step "a flipped bit fails the bit-identity test (harness check)"
+status=0
+VAPORA_QEMU_TIMEOUT=120 fw_cargo run --quiet --release --target "$check" --bin bit-identity \
+  --features inject-check-failure >"$out/$check-bit-identity-must-fail.txt" || status=$?
+if [ "$status" = 0 ] || ! grep -qx "end result=fail" "$out/$check-bit-identity-must-fail.txt"; then
+  echo "firmware: the bit-identity test did not catch a flipped bit (status $status)" >&2
+  exit 1
+fi
+grep '^diff ' "$out/$check-bit-identity-must-fail.txt"
+echo "exit status $status, as it must be"
+
+step "defmt log on every core, decoded on the host"
+for t in "${targets[@]}"; do
+  fw_cargo build --quiet --release --target "$t" --bin defmt-log --features defmt-log
+done
+# The host decoder, installed here rather than in cross-setup.sh so that
+# the quick start (scripts/run-firmware.sh) does not wait for it. The 1.x
+# decoder reads the frames of defmt 1.x.
+defmt_print=$(command -v defmt-print || true)
+[ -n "$defmt_print" ] || [ ! -x "$HOME/.cargo/bin/defmt-print" ] || defmt_print=$HOME/.cargo/bin/defmt-print
+if [ -z "$defmt_print" ]; then
+  echo "cargo install defmt-print --version '^1' --locked (about 2 minutes, once)"
+  (
+    # A host build: none of the firmware's cargo settings.
+    unset CARGO_TARGET_DIR RUSTC RUSTC_BOOTSTRAP
+    cd /tmp && timeout 900 cargo install defmt-print --version '^1' --locked --quiet
+  )
+  defmt_print=$(command -v defmt-print || echo "$HOME/.cargo/bin/defmt-print")
+fi
+VAPORA_DEFMT_PRINT=$defmt_print
+"$VAPORA_DEFMT_PRINT" --version
+for t in "${targets[@]}"; do
+  status=0
+  VAPORA_QEMU_TIMEOUT=60 fw_cargo run --quiet --release --target "$t" --bin defmt-log \
+    --features defmt-log >"$out/$t-defmt.bin" || status=$?
+  # Decoded lines only (no timestamps or locations), so cores compare.
+  "$VAPORA_DEFMT_PRINT" --log-format '{L} {s}' -e "$VAPORA_FIRMWARE_TARGET_DIR/$t/release/defmt-log" \
+    <"$out/$t-defmt.bin" >"$out/$t-defmt.txt" 2>"$out/$t-defmt.err" || true
+  if [ "$status" != 0 ] || ! grep -q "end result=pass" "$out/$t-defmt.txt"; then
+    cat "$out/$t-defmt.txt" "$out/$t-defmt.err"
+    echo "firmware: defmt-log failed on $t (exit status $status)" >&2
+    exit 1
+  fi
+done
+cat "$out/${targets[0]}-defmt.txt"
+for t in "${targets[@]:1}"; do
+  grep -v 'begin firmware' "$out/${targets[0]}-defmt.txt" >"$out/defmt-reference.txt"
+  if ! grep -v 'begin firmware' "$out/$t-defmt.txt" | diff -u "$out/defmt-reference.txt" -; then
+    echo "firmware: $t logged different results from ${targets[0]}" >&2
+    exit 1
+  fi
+done
+echo "decoded and identical on ${targets[*]}"
 
 step "cost measurement"
 scripts/measure-cost.sh "${targets[@]}"

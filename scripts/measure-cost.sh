@@ -8,10 +8,13 @@
 #
 # Writes target/cost/<target>.csv
 #   function,calls,min_insns,median_insns,max_insns,stack_bytes
-# and target/cost/<target>-size.csv
+# target/cost/<target>-size.csv
 #   component,code_bytes,table_bytes,static_ram_bytes
 # whose `kernel` row is the difference between the bench image and the same
-# bench built without the kernel's functions (feature without-kernel).
+# bench built without the kernel's functions (feature without-kernel), and
+# `baseline` row the same for the f64 formulation (feature without-baseline);
+# and target/cost/<target>-ratio.csv, the f64 formulation's cost over the
+# kernel's per function (median and worst case over the same inputs).
 # Instruction counts are not cycles: see firmware-example/README.md.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -25,10 +28,13 @@ mkdir -p target/cost
 
 for t in "${targets[@]}"; do
   elf=$VAPORA_FIRMWARE_TARGET_DIR/$t/release/cost
-  # The same bench without the kernel's functions, for the size difference
-  # (built first: both builds write the same ELF path).
+  # The same bench without the kernel's functions, and without the f64
+  # baseline, for the size differences (built first: all builds write the
+  # same ELF path).
   fw_cargo build --release --target "$t" --bin cost --features without-kernel
   "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size-without-kernel.txt"
+  fw_cargo build --release --target "$t" --bin cost --features without-baseline
+  "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size-without-baseline.txt"
   fw_cargo build --release --target "$t" --bin cost
   mark=$("$VAPORA_NM" "$elf" | awk '/ bench_mark$/ {print $1}')
   if [ -z "$mark" ]; then
@@ -49,9 +55,13 @@ for t in "${targets[@]}"; do
   "$VAPORA_NM" -S -C --defined-only "$elf" >"target/cost/$t.nm.txt"
   "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size.txt"
   python3 scripts/cost-table.py size "target/cost/$t.nm.txt" "target/cost/$t.size.txt" \
-    "target/cost/$t.size-without-kernel.txt" "target/cost/$t-size.csv"
+    "target/cost/$t.size-without-kernel.txt" "target/cost/$t.size-without-baseline.txt" \
+    "target/cost/$t-size.csv"
+  python3 scripts/cost-table.py ratio "target/cost/$t.csv" "target/cost/$t-ratio.csv"
   echo "== $t (instructions per call, not cycles)"
   column -t -s, "target/cost/$t.csv" 2>/dev/null || cat "target/cost/$t.csv"
   echo "-- $t flash and static RAM (bytes)"
-  column -t -s, "target/cost/$t-size.csv" 2>/dev/null || cat "target/cost/$t-size.csv"
+  grep -v '^wrapper:' "target/cost/$t-size.csv" | { column -t -s, 2>/dev/null || cat; }
+  echo "-- $t f64 formulation over kernel (instructions; detail rows in $t-size.csv)"
+  column -t -s, "target/cost/$t-ratio.csv" 2>/dev/null || cat "target/cost/$t-ratio.csv"
 done

@@ -1,10 +1,15 @@
 //! The steam computations of one scan. This is the only module that calls
 //! the vapora kernel, so wiring the kernel in (or changing its API) touches
 //! this file alone.
-//!
-//! Until the kernel's saturation functions land, [`steam_figures`] returns
-//! [`ComputeError::KernelNotWired`] and the scan reports no steam figures:
-//! the firmware never prints steam numbers that the kernel did not compute.
+//! Every steam figure comes from the kernel; this module only picks which
+//! kernel call a scan needs and maps the kernel's errors.
+
+use vapora_kernel::error::{MixtureError, SaturationError, UnitError};
+use vapora_kernel::mixture::wet_steam_at_pressure;
+use vapora_kernel::saturation::saturated_state_at_pressure;
+use vapora_kernel::units::{AbsolutePressure, GaugePressure};
+
+use crate::scenario::{SATURATED_BAND_K, SUPERHEAT_ALARM_MARGIN_K};
 
 /// What one scan hands to the steam computation (values already scaled,
 /// range-checked and, where a transmitter faulted, held).
@@ -50,6 +55,12 @@ pub struct SteamFigures {
 pub enum ComputeError {
     /// The kernel's saturation functions are not in this build yet.
     KernelNotWired,
+    /// A value the kernel's unit types reject.
+    Unit(UnitError),
+    /// Pressure outside the kernel's saturation tables.
+    Saturation(SaturationError),
+    /// Dryness fraction outside 0..=1, or pressure outside the tables.
+    Mixture(MixtureError),
     /// Gauge plus ambient is not a usable absolute pressure (negative or
     /// not finite), Pa.
     InvalidAbsolutePressure {
@@ -59,37 +70,56 @@ pub enum ComputeError {
 }
 
 /// Whether this build computes steam figures with the kernel.
-pub const KERNEL_WIRED: bool = false;
+pub const KERNEL_WIRED: bool = true;
 
 /// Absolute pressure from a gauge reading and the ambient (barometric)
 /// pressure, Pa.
 ///
 /// # Errors
-/// [`ComputeError::InvalidAbsolutePressure`] if the sum is negative or not
-/// finite (a vacuum reading deeper than the ambient allows).
+/// [`ComputeError::Unit`] if either reading is not finite, the ambient is
+/// negative, or the sum is negative (a vacuum reading deeper than the
+/// ambient allows).
 pub fn absolute_pressure_pa(gauge_pa: f32, ambient_pa: f32) -> Result<f32, ComputeError> {
-    // When the kernel lands: units::AbsolutePressure::from_gauge, which
-    // makes the same checks.
-    let pressure_pa = gauge_pa + ambient_pa;
-    if pressure_pa.is_finite() && pressure_pa >= 0.0 {
-        Ok(pressure_pa)
-    } else {
-        Err(ComputeError::InvalidAbsolutePressure { pressure_pa })
-    }
+    let gauge = GaugePressure::from_pa(gauge_pa).map_err(ComputeError::Unit)?;
+    let ambient = AbsolutePressure::from_pa(ambient_pa).map_err(ComputeError::Unit)?;
+    let absolute = AbsolutePressure::from_gauge(gauge, ambient).map_err(ComputeError::Unit)?;
+    Ok(absolute.as_pa())
 }
 
 /// Saturation temperature, superheat margin and alarm, saturated-vapour
 /// density and enthalpy, wet-steam enthalpy and energy flow for one scan.
 ///
 /// # Errors
-/// [`ComputeError::KernelNotWired`] until the kernel is wired in; then the
-/// kernel's own errors (pressure outside its range, dryness outside 0..=1).
+/// The kernel's errors: [`ComputeError::Unit`] for a non-finite or negative
+/// pressure, [`ComputeError::Saturation`] outside the saturation tables,
+/// [`ComputeError::Mixture`] for a dryness fraction outside 0..=1.
 pub fn steam_figures(inputs: &ScanInputs) -> Result<SteamFigures, ComputeError> {
-    // Wiring the kernel in: replace this body with
-    // saturated_state_at_pressure(p) and wet_steam_at_pressure(p, x) on a
-    // units::AbsolutePressure built from `inputs.absolute_pressure_pa`, map
-    // the kernel's errors into ComputeError variants and set KERNEL_WIRED.
-    // See README.md, "Wiring the kernel in".
-    let _ = inputs;
-    Err(ComputeError::KernelNotWired)
+    let pressure =
+        AbsolutePressure::from_pa(inputs.absolute_pressure_pa).map_err(ComputeError::Unit)?;
+    let saturated = saturated_state_at_pressure(pressure).map_err(ComputeError::Saturation)?;
+    let saturation_temperature_c = saturated.temperature.as_celsius();
+    let superheat_margin_k = inputs
+        .header_temperature_c
+        .map(|t| t - saturation_temperature_c);
+    let superheat_low = superheat_margin_k.is_some_and(|m| m < SUPERHEAT_ALARM_MARGIN_K);
+    let steam_enthalpy_j_kg = match (superheat_margin_k, inputs.dryness_fraction) {
+        (Some(margin), Some(x)) if margin < SATURATED_BAND_K => {
+            wet_steam_at_pressure(pressure, x)
+                .map_err(ComputeError::Mixture)?
+                .enthalpy_j_kg
+        }
+        _ => saturated.vapour.enthalpy_j_kg,
+    };
+    Ok(SteamFigures {
+        saturation_temperature_c,
+        superheat_margin_k,
+        superheat_low,
+        saturated_vapour_density_kg_m3: saturated.vapour.density_kg_m3,
+        saturated_vapour_enthalpy_j_kg: saturated.vapour.enthalpy_j_kg,
+        steam_enthalpy_j_kg,
+        // J/s to kW.
+        energy_flow_kw: inputs
+            .mass_flow_kg_s
+            .map(|m| m * steam_enthalpy_j_kg / 1000.0),
+    })
 }

@@ -14,6 +14,7 @@
 pub mod adc;
 pub mod compute;
 pub mod hold;
+pub mod kernel_calls;
 pub mod loop_scaling;
 pub mod measured;
 pub mod report;

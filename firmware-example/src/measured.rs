@@ -1,15 +1,32 @@
 //! The one place that lists the functions whose cost `src/bin/cost.rs`
-//! measures and `scripts/measure-cost.sh` tabulates: [`KERNEL`] for the
-//! kernel's public functions, [`STAND_INS`] for reference points. Adding a
+//! measures and `scripts/measure-cost.sh` tabulates: [`KERNEL`] for every
+//! public kernel function, [`BASELINE`] for the f64 IAPWS-IF97 formulation
+//! (`vapora-tables`, compiled `no_std` for the core) evaluated directly for
+//! the same outputs, and [`STAND_INS`] for reference points. Adding a
 //! function is one entry plus its two small adapters (`*_input`, `call_*`).
 //!
-//! Until the kernel's functions land, [`KERNEL`] is empty and the stand-ins,
-//! which exist today, prove the pipeline end to end: `libm::logf` and
-//! `libm::expf` (the kind of call the kernel's spline evaluation makes) and
-//! a 20-term Horner polynomial in f32 and in f64 (the f64 one is what a
-//! direct double-precision formulation costs on a core without a double
-//! FPU).
+//! Each `call_*` wrapper takes the raw f32 inputs, builds the kernel's unit
+//! types (as a caller must), makes the call and hands the whole result to
+//! `core::hint::black_box`, so no output can be optimised away (with fat
+//! LTO the kernel is inlined into the wrapper). The sweeps cover the range
+//! and end with edge cases: the IF97 hand-over at 623.15 K, both range
+//! ends, and one input below and one above the range (error results).
+//!
+//! The stand-ins: `libm::logf` and `libm::expf` (the kind of call the
+//! kernel's spline evaluation makes) and a 20-term Horner polynomial in f32
+//! and in f64 (the f64 one is what a direct double-precision formulation
+//! costs on a core without a double FPU).
 
+use core::hint::black_box;
+
+use vapora_kernel::saturation::{
+    SaturatedProperty, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K, TEMPERATURE_MIN_K,
+};
+use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
+use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
+use vapora_tables::if97::{region4, saturation as if97_saturation};
+
+use crate::kernel_calls::PROPERTIES;
 /// One measured function.
 pub struct Measured {
     /// Name in the cost table (`function` column).
@@ -38,11 +55,147 @@ fn sweep_log(i: u32, lo: f32, hi: f32) -> f32 {
     libm::expf(sweep(i, libm::logf(lo), libm::logf(hi)))
 }
 
-/// The kernel's functions, measured first. Empty until the kernel's
-/// saturation functions land; `scripts/measure-cost.sh` also builds the
-/// bench without them (feature `without-kernel`) and takes the kernel's
-/// flash and static RAM as the difference between the two images.
-pub const KERNEL: &[Measured] = &[];
+/// Every public kernel function, measured first; `scripts/measure-cost.sh`
+/// also builds the bench without them (feature `without-kernel`) and takes
+/// the kernel's flash and static RAM as the difference between the two
+/// images. The single-property calls sweep all twelve properties (the
+/// `i`-th call asks for property `i mod 12`); the `Phase` of the phase
+/// calls carries the dryness fraction.
+pub const KERNEL: &[Measured] = &[
+    Measured {
+        name: "saturation_temperature",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_saturation_temperature,
+    },
+    Measured {
+        name: "saturation_pressure",
+        calls: SWEEP,
+        input: temperature_input,
+        call: call_saturation_pressure,
+    },
+    Measured {
+        name: "saturated_state_at_pressure",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_saturated_state_at_pressure,
+    },
+    Measured {
+        name: "saturated_state_at_temperature",
+        calls: SWEEP,
+        input: temperature_input,
+        call: call_saturated_state_at_temperature,
+    },
+    Measured {
+        name: "saturated_property_at_pressure",
+        calls: SWEEP,
+        input: pressure_property_input,
+        call: call_saturated_property_at_pressure,
+    },
+    Measured {
+        name: "saturated_property_at_temperature",
+        calls: SWEEP,
+        input: temperature_property_input,
+        call: call_saturated_property_at_temperature,
+    },
+    Measured {
+        name: "phase_from_pressure_enthalpy",
+        calls: SWEEP,
+        input: pressure_enthalpy_input,
+        call: call_phase_from_pressure_enthalpy,
+    },
+    Measured {
+        name: "phase_from_pressure_entropy",
+        calls: SWEEP,
+        input: pressure_entropy_input,
+        call: call_phase_from_pressure_entropy,
+    },
+    Measured {
+        name: "phase_from_pressure_specific_volume",
+        calls: SWEEP,
+        input: pressure_volume_input,
+        call: call_phase_from_pressure_specific_volume,
+    },
+    Measured {
+        name: "phase_from_temperature_enthalpy",
+        calls: SWEEP,
+        input: temperature_enthalpy_input,
+        call: call_phase_from_temperature_enthalpy,
+    },
+    Measured {
+        name: "phase_from_temperature_entropy",
+        calls: SWEEP,
+        input: temperature_entropy_input,
+        call: call_phase_from_temperature_entropy,
+    },
+    Measured {
+        name: "wet_steam_at_pressure",
+        calls: SWEEP,
+        input: pressure_dryness_input,
+        call: call_wet_steam_at_pressure,
+    },
+    Measured {
+        name: "wet_steam_at_temperature",
+        calls: SWEEP,
+        input: temperature_dryness_input,
+        call: call_wet_steam_at_temperature,
+    },
+    Measured {
+        name: "accuracy_at_saturation_temperature_k",
+        calls: SWEEP,
+        input: temperature_input,
+        call: call_accuracy_at_saturation_temperature_k,
+    },
+    Measured {
+        name: "absolute_pressure_from_gauge",
+        calls: SWEEP,
+        input: gauge_ambient_input,
+        call: call_absolute_pressure_from_gauge,
+    },
+    Measured {
+        name: "absolute_pressure_from_bar",
+        calls: SWEEP,
+        input: bar_input,
+        call: call_absolute_pressure_from_bar,
+    },
+    Measured {
+        name: "temperature_from_celsius",
+        calls: SWEEP,
+        input: celsius_input,
+        call: call_temperature_from_celsius,
+    },
+];
+
+/// The baseline: the f64 formulation evaluated on the core for the same
+/// outputs and the same inputs as the kernel row of the same name without
+/// the `f64_` prefix (`scripts/cost-table.py ratio` pairs them). Feature
+/// `without-baseline` leaves it out, for its flash size.
+pub const BASELINE: &[Measured] = &[
+    Measured {
+        name: "f64_saturation_temperature",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_f64_saturation_temperature,
+    },
+    Measured {
+        name: "f64_saturation_pressure",
+        calls: SWEEP,
+        input: temperature_input,
+        call: call_f64_saturation_pressure,
+    },
+    Measured {
+        name: "f64_saturated_state_at_pressure",
+        calls: SWEEP,
+        input: pressure_input,
+        call: call_f64_saturated_state_at_pressure,
+    },
+    Measured {
+        name: "f64_phase_from_pressure_enthalpy",
+        calls: SWEEP,
+        input: pressure_enthalpy_input,
+        call: call_f64_phase_from_pressure_enthalpy,
+    },
+];
 
 /// Stand-ins and reference points, measured after the kernel's functions.
 pub const STAND_INS: &[Measured] = &[
@@ -138,4 +291,307 @@ fn call_horner20_f64(x: [f32; 2]) -> u32 {
     // Fold the double's bits so none of the work can be dropped.
     let bits = value.to_bits();
     (bits >> 32) as u32 ^ bits as u32
+}
+
+/// The last four inputs of every sweep: the IF97 hand-over (623.15 K or
+/// psat there) and its upper neighbour, then one below and one above the
+/// range (error results).
+const EDGE_CASES: u32 = 4;
+
+fn next_up(x: f32) -> f32 {
+    f32::from_bits(x.to_bits() + 1)
+}
+
+/// Input `i` of a sweep of `SWEEP` over `lo..=hi` (evenly in ln x if
+/// `log`): `SWEEP - EDGE_CASES` points over the range, then the edge cases
+/// `boundary`, its upper neighbour, 1 % below `lo` and 1 % above `hi`.
+fn range_point(i: u32, lo: f32, hi: f32, boundary: f32, log: bool) -> f32 {
+    let n = SWEEP - EDGE_CASES;
+    match i.checked_sub(n) {
+        None => {
+            let f = (i as f32) / ((n - 1) as f32);
+            let x = if log {
+                libm::expf(libm::logf(lo) + (libm::logf(hi) - libm::logf(lo)) * f)
+            } else {
+                lo + (hi - lo) * f
+            };
+            // exp(log(x)) in f32 can land just outside the range.
+            x.clamp(lo, hi)
+        }
+        Some(0) => boundary,
+        Some(1) => next_up(boundary),
+        Some(2) => lo * 0.99,
+        _ => hi * 1.01,
+    }
+}
+
+/// Absolute pressures over the kernel's saturation range, Pa.
+fn pressure_input(i: u32) -> [f32; 2] {
+    let p = range_point(
+        i,
+        PRESSURE_MIN_PA,
+        PRESSURE_MAX_PA,
+        BOUNDARY_PRESSURE_PA,
+        true,
+    );
+    [p, 0.0]
+}
+
+/// Temperatures over the kernel's saturation range, K.
+fn temperature_input(i: u32) -> [f32; 2] {
+    let t = range_point(
+        i,
+        TEMPERATURE_MIN_K,
+        TEMPERATURE_MAX_K,
+        BOUNDARY_TEMPERATURE_K,
+        false,
+    );
+    [t, 0.0]
+}
+
+/// A second input stepping through its own sweep in a different order from
+/// the first (37 is prime to 128), so the pairs cover the plane.
+fn scrambled(i: u32, lo: f32, hi: f32) -> f32 {
+    sweep((i * 37) % SWEEP, lo, hi)
+}
+
+fn pressure_property_input(i: u32) -> [f32; 2] {
+    [pressure_input(i)[0], (i % 12) as f32]
+}
+
+fn temperature_property_input(i: u32) -> [f32; 2] {
+    [temperature_input(i)[0], (i % 12) as f32]
+}
+
+/// Enthalpies from subcooled liquid to superheated vapour, J/kg.
+fn pressure_enthalpy_input(i: u32) -> [f32; 2] {
+    [pressure_input(i)[0], scrambled(i, 0.0, 3.5e6)]
+}
+
+/// Entropies from subcooled liquid to superheated vapour, J/(kg K).
+fn pressure_entropy_input(i: u32) -> [f32; 2] {
+    [pressure_input(i)[0], scrambled(i, 0.0, 9.5e3)]
+}
+
+/// Specific volumes from liquid to low-pressure vapour, m3/kg.
+fn pressure_volume_input(i: u32) -> [f32; 2] {
+    [
+        pressure_input(i)[0],
+        sweep_log((i * 37) % SWEEP, 9e-4, 250.0),
+    ]
+}
+
+fn temperature_enthalpy_input(i: u32) -> [f32; 2] {
+    [temperature_input(i)[0], scrambled(i, 0.0, 3.5e6)]
+}
+
+fn temperature_entropy_input(i: u32) -> [f32; 2] {
+    [temperature_input(i)[0], scrambled(i, 0.0, 9.5e3)]
+}
+
+fn pressure_dryness_input(i: u32) -> [f32; 2] {
+    [pressure_input(i)[0], scrambled(i, 0.0, 1.0)]
+}
+
+fn temperature_dryness_input(i: u32) -> [f32; 2] {
+    [temperature_input(i)[0], scrambled(i, 0.0, 1.0)]
+}
+
+/// Gauge readings from vacuum to 220 bar(g), Pa, and a barometer, Pa.
+fn gauge_ambient_input(i: u32) -> [f32; 2] {
+    [sweep(i, -0.9e5, 2.2e7), scrambled(i, 0.95e5, 1.05e5)]
+}
+
+fn bar_input(i: u32) -> [f32; 2] {
+    [sweep(i, -1.0, 221.0), 0.0]
+}
+
+fn celsius_input(i: u32) -> [f32; 2] {
+    [sweep(i, -280.0, 380.0), 0.0]
+}
+
+/// What an error result contributes to the checksum.
+const ERROR_BITS: u32 = u32::MAX;
+
+/// Passes the whole result through `black_box` (so every output is
+/// computed and stored) and returns its status for the checksum.
+fn consume<T, E>(r: Result<T, E>) -> u32 {
+    let ok = r.is_ok();
+    let _ = black_box(r);
+    if ok {
+        0
+    } else {
+        ERROR_BITS
+    }
+}
+
+fn pressure(pa: f32) -> Result<AbsolutePressure, u32> {
+    AbsolutePressure::from_pa(pa).map_err(|_| ERROR_BITS)
+}
+
+fn temperature(k: f32) -> Result<Temperature, u32> {
+    Temperature::from_kelvin(k).map_err(|_| ERROR_BITS)
+}
+
+fn property(index: f32) -> SaturatedProperty {
+    PROPERTIES
+        .get(index as usize)
+        .copied()
+        .unwrap_or(SaturatedProperty::VapourCp)
+}
+
+#[inline(never)]
+fn call_saturation_temperature(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::saturation::saturation_temperature(p))
+    })
+}
+
+#[inline(never)]
+fn call_saturation_pressure(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::saturation::saturation_pressure(t))
+    })
+}
+
+#[inline(never)]
+fn call_saturated_state_at_pressure(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::saturation::saturated_state_at_pressure(p))
+    })
+}
+
+#[inline(never)]
+fn call_saturated_state_at_temperature(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::saturation::saturated_state_at_temperature(t))
+    })
+}
+
+#[inline(never)]
+fn call_saturated_property_at_pressure(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::saturation::saturated_property_at_pressure(
+            p,
+            property(x[1]),
+        ))
+    })
+}
+
+#[inline(never)]
+fn call_saturated_property_at_temperature(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::saturation::saturated_property_at_temperature(t, property(x[1])))
+    })
+}
+
+#[inline(never)]
+fn call_phase_from_pressure_enthalpy(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::quality::phase_from_pressure_enthalpy(
+            p, x[1],
+        ))
+    })
+}
+
+#[inline(never)]
+fn call_phase_from_pressure_entropy(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::quality::phase_from_pressure_entropy(p, x[1]))
+    })
+}
+
+#[inline(never)]
+fn call_phase_from_pressure_specific_volume(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::quality::phase_from_pressure_specific_volume(
+            p, x[1],
+        ))
+    })
+}
+
+#[inline(never)]
+fn call_phase_from_temperature_enthalpy(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::quality::phase_from_temperature_enthalpy(
+            t, x[1],
+        ))
+    })
+}
+
+#[inline(never)]
+fn call_phase_from_temperature_entropy(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::quality::phase_from_temperature_entropy(
+            t, x[1],
+        ))
+    })
+}
+
+#[inline(never)]
+fn call_wet_steam_at_pressure(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| {
+        consume(vapora_kernel::mixture::wet_steam_at_pressure(p, x[1]))
+    })
+}
+
+#[inline(never)]
+fn call_wet_steam_at_temperature(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| {
+        consume(vapora_kernel::mixture::wet_steam_at_temperature(t, x[1]))
+    })
+}
+
+#[inline(never)]
+fn call_accuracy_at_saturation_temperature_k(x: [f32; 2]) -> u32 {
+    let a = vapora_kernel::accuracy::accuracy_at_saturation_temperature_k(x[0]);
+    black_box(a);
+    0
+}
+
+#[inline(never)]
+fn call_absolute_pressure_from_gauge(x: [f32; 2]) -> u32 {
+    let gauge = GaugePressure::from_pa(x[0]);
+    let ambient = AbsolutePressure::from_pa(x[1]);
+    match (gauge, ambient) {
+        (Ok(g), Ok(a)) => consume(AbsolutePressure::from_gauge(g, a)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_absolute_pressure_from_bar(x: [f32; 2]) -> u32 {
+    consume(AbsolutePressure::from_bar(x[0]))
+}
+
+#[inline(never)]
+fn call_temperature_from_celsius(x: [f32; 2]) -> u32 {
+    consume(Temperature::from_celsius(x[0]))
+}
+
+#[inline(never)]
+fn call_f64_saturation_temperature(x: [f32; 2]) -> u32 {
+    consume(region4::saturation_temperature_k(f64::from(x[0])))
+}
+
+#[inline(never)]
+fn call_f64_saturation_pressure(x: [f32; 2]) -> u32 {
+    consume(region4::saturation_pressure_pa(f64::from(x[0])))
+}
+
+#[inline(never)]
+fn call_f64_saturated_state_at_pressure(x: [f32; 2]) -> u32 {
+    consume(if97_saturation::at_pressure(f64::from(x[0])))
+}
+
+/// Dryness fraction from (p, h) the direct way: both saturated states from
+/// the formulation, then the lever rule x = (h − h′)/(h″ − h′).
+#[inline(never)]
+fn call_f64_phase_from_pressure_enthalpy(x: [f32; 2]) -> u32 {
+    let h = f64::from(x[1]);
+    consume(
+        if97_saturation::at_pressure(f64::from(x[0])).map(|s| {
+            (h - s.liquid.enthalpy_j_kg) / (s.vapour.enthalpy_j_kg - s.liquid.enthalpy_j_kg)
+        }),
+    )
 }

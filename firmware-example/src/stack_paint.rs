@@ -11,8 +11,9 @@
 pub const PATTERN: u32 = 0x5EA5_0A1F;
 
 /// Bytes painted below SP. Covers the kernel's 256-byte target with a wide
-/// margin and fits the 16 KiB of RAM on the micro:bit.
-pub const PAINT_BYTES: u32 = 2048;
+/// margin, and the f64 formulation baseline (about 2 KiB for a saturated
+/// state: its Region 3 solver), and fits the 16 KiB of RAM on the micro:bit.
+pub const PAINT_BYTES: u32 = 8192;
 
 /// Paints [`PAINT_BYTES`] below the current stack pointer and returns that
 /// stack pointer.

@@ -3,6 +3,7 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+pub mod bit_vectors;
 pub mod regress;
 pub mod report;
 pub mod robustness;

@@ -1,5 +1,5 @@
-//! Cost bench: calls every function of `measured::KERNEL` and
-//! `measured::STAND_INS` over its sweep,
+//! Cost bench: calls every function of `measured::KERNEL`,
+//! `measured::BASELINE` and `measured::STAND_INS` over its sweep,
 //! with `bench_mark()` right before and right after each call, and paints
 //! the stack before each call to measure its depth.
 //!
@@ -15,7 +15,7 @@ use cortex_m_rt::entry;
 use cortex_m_semihosting::{debug, hprintln};
 use panic_semihosting as _;
 
-use vapora_firmware_example::measured::{Measured, CALIBRATION, KERNEL, STAND_INS};
+use vapora_firmware_example::measured::{Measured, BASELINE, CALIBRATION, KERNEL, STAND_INS};
 use vapora_firmware_example::stack_paint::{deepest_use, paint_below_sp, PAINT_BYTES};
 
 /// The marker the instruction-count plugin watches (by address, found with
@@ -77,13 +77,18 @@ fn main() -> ! {
         "begin firmware=cost board={} paint_bytes={} functions={}",
         env!("VAPORA_BOARD"),
         PAINT_BYTES,
-        KERNEL.len() + STAND_INS.len()
+        KERNEL.len() + BASELINE.len() + STAND_INS.len()
     );
     let mut ok = run(&CALIBRATION);
     // Without the kernel's functions referenced, the linker drops their
     // code and tables: measure-cost.sh sizes both images.
     if !cfg!(feature = "without-kernel") {
         for m in KERNEL {
+            ok &= run(m);
+        }
+    }
+    if !cfg!(feature = "without-baseline") {
+        for m in BASELINE {
             ok &= run(m);
         }
     }
