@@ -8,3 +8,4 @@ pub mod regress;
 pub mod report;
 pub mod robustness;
 pub mod tolerance;
+pub mod single_phase;
