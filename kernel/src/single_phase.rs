@@ -305,10 +305,6 @@ impl Sheet {
         )
     }
 
-    fn is_high(self) -> bool {
-        !matches!(self, Self::VapourLow | Self::LiquidLow)
-    }
-
     /// Whether y = 1 is an end of the envelope (273.16 K or 1073.15 K).
     fn far_edge_is_envelope(self) -> bool {
         matches!(
@@ -347,16 +343,16 @@ struct Geometry {
 impl Geometry {
     fn new(sheet: Sheet, p_pa: f32, edge_k: f32) -> Self {
         let data = sheet.data();
-        let x = if sheet.is_high() {
-            let d = table::CRITICAL_PRESSURE_PA - p_pa;
-            let root = libm::sqrtf(if d < 0.0 { -d } else { d });
-            if d < 0.0 {
-                -root
-            } else {
-                root
+        let to_critical = p_pa - table::CRITICAL_PRESSURE_PA;
+        let x = match sheet {
+            Sheet::VapourLow | Sheet::LiquidLow => {
+                libm::logf(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
             }
-        } else {
-            libm::logf(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
+            Sheet::LiquidHigh | Sheet::VapourHigh => p_pa * 1.0e-6,
+            Sheet::LiquidNearCritical | Sheet::VapourNearCritical => {
+                libm::asinhf(to_critical * table::CRITICAL_INVERSE_SCALE_PA)
+                    + to_critical * table::CRITICAL_INVERSE_LINEAR_SCALE_PA
+            }
         };
         let (t0, t1) = match sheet {
             Sheet::VapourLow => (edge_k, TEMPERATURE_MAX_K),
@@ -373,8 +369,11 @@ impl Geometry {
         } else {
             MIN_WIDTH_K
         };
-        let dp = p_pa - data.cluster_reference_pa;
-        let delta = data.cluster_base_k + data.cluster_slope_k_pa * if dp < 0.0 { -dp } else { dp };
+        // δ = δ_base + δ_slope·√((p − p_ref)² + p_s²), in units of p_s.
+        let d = (p_pa - data.cluster_reference_pa) * table::CRITICAL_INVERSE_SCALE_PA;
+        let delta = data.cluster_base_k
+            + data.cluster_slope_k_pa * libm::sqrtf(d * d + 1.0)
+                * (1.0 / table::CRITICAL_INVERSE_SCALE_PA);
         Self {
             x,
             t0,
@@ -465,9 +464,10 @@ fn edge_temperature(p_pa: f32) -> Result<(f32, bool), SinglePhaseError> {
         let t = saturation::saturation_temperature(AbsolutePressure::from_table_pa(p))?;
         Ok((t.as_kelvin(), true))
     } else {
+        let d = p_pa - table::CRITICAL_PRESSURE_PA;
         Ok((
             table::CRITICAL_TEMPERATURE_K
-                + table::SPLIT_SLOPE_K_PA * (p_pa - table::CRITICAL_PRESSURE_PA),
+                + d * (table::SPLIT_SLOPE_K_PA + d * table::SPLIT_CURVATURE_K_PA2),
             false,
         ))
     }

@@ -130,6 +130,10 @@ pub struct SinglePhaseConfig {
     pub samples_per_interval: usize,
     /// p1 of the low sheets' coordinate x = ln(p/Pa) + p/p1, Pa.
     pub x_pressure_scale_pa: f64,
+    /// p_s of the near-critical sheets' coordinate x = asinh((p − pc)/p_s) + (p − pc)/p_l, Pa.
+    pub critical_scale_pa: f64,
+    /// p_l of the same, Pa.
+    pub critical_linear_scale_pa: f64,
 }
 
 impl Default for SinglePhaseConfig {
@@ -139,13 +143,15 @@ impl Default for SinglePhaseConfig {
             pressure_max_pa: 25.0e6,
             temperature_min_k: 273.16,
             temperature_max_k: 1073.15,
-            intervals: [[36, 28], [40, 24], [10, 26], [32, 14], [32, 28], [20, 26]],
-            inverse_intervals: [28, 20, 18, 14, 28, 22],
-            cluster_base_k: [0.5, 10000.0, 10000.0, 0.3, 0.3, 20.0],
-            cluster_k_per_mpa: [1.0, 0.0, 0.0, 1.0, 1.0, 1.0],
-            cluster_reference_mpa: [22.064, 22.064, 22.064, 22.064, 22.064, 16.53],
+            intervals: [[36, 28], [24, 36], [14, 30], [32, 14], [32, 28], [20, 26]],
+            inverse_intervals: [24, 24, 18, 16, 32, 22],
+            cluster_base_k: [0.5, 60.0, 100.0, 0.1, 0.1, 20.0],
+            cluster_k_per_mpa: [1.0, 0.0, 5.0, 1.0, 1.0, 1.0],
+            cluster_reference_mpa: [22.064, 22.064, 16.53, 22.064, 22.064, 16.53],
             samples_per_interval: 4,
             x_pressure_scale_pa: 2.0e6,
+            critical_scale_pa: 0.5e6,
+            critical_linear_scale_pa: 4.0e6,
         }
     }
 }
@@ -168,7 +174,7 @@ impl SinglePhaseConfig {
         format!(
             "pressure_min_pa={} pressure_max_pa={} temperature_min_k={} temperature_max_k={} \
              intervals={} inverse_intervals={} cluster_base_k={} cluster_k_per_mpa={} cluster_reference_mpa={} samples_per_interval={} \
-             x_pressure_scale_pa={}",
+             x_pressure_scale_pa={} critical_scale_pa={} critical_linear_scale_pa={}",
             self.pressure_min_pa,
             self.pressure_max_pa,
             self.temperature_min_k,
@@ -179,7 +185,9 @@ impl SinglePhaseConfig {
             list(&self.cluster_k_per_mpa),
             list(&self.cluster_reference_mpa),
             self.samples_per_interval,
-            self.x_pressure_scale_pa
+            self.x_pressure_scale_pa,
+            self.critical_scale_pa,
+            self.critical_linear_scale_pa
         )
     }
 
@@ -239,6 +247,8 @@ impl SinglePhaseConfig {
             "cluster_reference_mpa" => self.cluster_reference_mpa = six(value, float, bad())?,
             "samples_per_interval" => self.samples_per_interval = count(value)?,
             "x_pressure_scale_pa" => self.x_pressure_scale_pa = float(value)?,
+            "critical_scale_pa" => self.critical_scale_pa = float(value)?,
+            "critical_linear_scale_pa" => self.critical_linear_scale_pa = float(value)?,
             _ => return Err(format!("unknown setting {key}")),
         }
         Ok(())
@@ -454,8 +464,14 @@ pub struct SinglePhaseLimits {
     pub critical_temperature_k: f32,
     /// k = dT_sat/dp at pc, K/Pa (slope of the split above pc).
     pub split_slope_k_pa: f32,
+    /// c = ½·d²T_sat/dp² at pc, K/Pa² (curvature of the split above pc).
+    pub split_curvature_k_pa2: f32,
     /// 1/p1 of the low sheets' x = ln p + p/p1, 1/Pa.
     pub x_inverse_pressure_scale: f32,
+    /// 1/p_s of the near-critical sheets' x = asinh((p − pc)/p_s) + (p − pc)/p_l, 1/Pa.
+    pub critical_inverse_scale_pa: f32,
+    /// 1/p_l of the same, 1/Pa.
+    pub critical_inverse_linear_scale_pa: f32,
 }
 
 /// One generated sheet with its inverse sheets and stretch.
@@ -509,16 +525,6 @@ impl SinglePhaseGenerated {
     }
 }
 
-/// σ = sign(pc − p)·√|pc − p|, √Pa, with pc the f32 constant.
-pub fn sigma_of(p: f64, pc: f64) -> f64 {
-    let d = pc - p;
-    d.signum() * d.abs().sqrt()
-}
-
-fn pressure_of_sigma(s: f64, pc: f64) -> f64 {
-    pc - s * s.abs()
-}
-
 /// The geometry of a sheet at a pressure, as the kernel computes it.
 #[derive(Debug, Clone, Copy)]
 pub struct Edges {
@@ -557,15 +563,33 @@ impl Edges {
     }
 }
 
-/// Edges of a sheet at pressure p with the f64 formulation's lines.
-pub fn edges(kind: SheetKind, l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64) -> Edges {
-    let tc = f64::from(l.critical_temperature_k);
+/// δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_s²), K: a smooth form of
+/// δ_base + δ_slope·|p − p_ref| (p_s the near-critical pressure scale), so the
+/// coordinate lines have no kink at p_ref.
+pub fn cluster_delta(l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64) -> f64 {
+    let d = (p - f64::from(g.cluster_reference_pa)) * f64::from(l.critical_inverse_scale_pa);
+    f64::from(g.cluster_base_k)
+        + f64::from(g.cluster_slope_k_pa) * (d * d + 1.0).sqrt() / f64::from(l.critical_inverse_scale_pa)
+}
+
+/// The liquid/vapour edge: T_sat(p) below pc, and from pc up the
+/// continuation Tc + k·(p − pc) + c·(p − pc)² with the slope and curvature
+/// of the saturation line at pc (so the edge is smooth through pc).
+pub fn edge_temperature(l: &SinglePhaseLimits, p: f64) -> f64 {
     let pc = f64::from(l.critical_pressure_pa);
-    let t_edge = if p < pc {
+    if p < pc {
         region4::saturation_temperature_k_unchecked(p)
     } else {
-        tc + f64::from(l.split_slope_k_pa) * (p - pc)
-    };
+        let d = p - pc;
+        f64::from(l.critical_temperature_k)
+            + f64::from(l.split_slope_k_pa) * d
+            + f64::from(l.split_curvature_k_pa2) * d * d
+    }
+}
+
+/// Edges of a sheet at pressure p with the f64 formulation's lines.
+pub fn edges(kind: SheetKind, l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64) -> Edges {
+    let t_edge = edge_temperature(l, p);
     let tmin = f64::from(l.temperature_min_k);
     let tmax = f64::from(l.temperature_max_k);
     let t3 = f64::from(l.region3_temperature_k);
@@ -586,8 +610,7 @@ pub fn edges(kind: SheetKind, l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64)
         t0,
         direction,
         width: (direction * (t1 - t0)).max(1e-9),
-        delta: f64::from(g.cluster_base_k)
-            + f64::from(g.cluster_slope_k_pa) * (p - f64::from(g.cluster_reference_pa)).abs(),
+        delta: cluster_delta(l, g, p),
     }
 }
 
@@ -640,33 +663,79 @@ pub fn pressure_range(kind: SheetKind, l: &SinglePhaseLimits) -> (f64, f64) {
     }
 }
 
+/// How a sheet's x coordinate is made from the pressure.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum XCoordinate {
+    /// x = ln(p/Pa) + p/p1 (the low sheets: logarithmic at low pressure,
+    /// finer towards p_b).
+    LogPressure,
+    /// x = p/MPa (liquid and vapour away from the critical point above p_b).
+    Pressure,
+    /// x = asinh((p − pc)/p_s) (the near-critical sheets: smooth through pc,
+    /// knots crowded towards it).
+    Critical,
+}
+
+impl SheetKind {
+    /// The x coordinate of the sheet.
+    pub fn x_coordinate(self) -> XCoordinate {
+        match self {
+            Self::VapourLow | Self::LiquidLow => XCoordinate::LogPressure,
+            Self::LiquidHigh | Self::VapourHigh => XCoordinate::Pressure,
+            Self::LiquidNearCritical | Self::VapourNearCritical => XCoordinate::Critical,
+        }
+    }
+}
+
 /// Pressure at table coordinate x.
 pub fn pressure_of_x(kind: SheetKind, l: &SinglePhaseLimits, x: f64) -> f64 {
-    if kind.high() {
-        pressure_of_sigma(x, f64::from(l.critical_pressure_pa))
-    } else {
-        // Newton on ln p + p/p1 = x (monotone, convex in ln p).
-        let k = f64::from(l.x_inverse_pressure_scale);
-        let mut lp = x.min(30.0);
-        for _ in 0..100 {
-            let p = lp.exp();
-            let f = lp + p * k - x;
-            let step = f / (1.0 + p * k);
-            lp -= step;
-            if step.abs() < 1e-15 * (1.0 + lp.abs()) {
-                break;
+    let pc = f64::from(l.critical_pressure_pa);
+    match kind.x_coordinate() {
+        XCoordinate::Pressure => x * 1.0e6,
+        XCoordinate::Critical => {
+            // Newton on asinh(d/p_s) + d/p_l = x (monotone in d).
+            let ks = f64::from(l.critical_inverse_scale_pa);
+            let kl = f64::from(l.critical_inverse_linear_scale_pa);
+            let mut d = x.sinh() / ks;
+            for _ in 0..200 {
+                let f = (d * ks).asinh() + d * kl - x;
+                let slope = ks / (1.0 + (d * ks).powi(2)).sqrt() + kl;
+                let step = f / slope;
+                d -= step;
+                if step.abs() < 1e-9 {
+                    break;
+                }
             }
+            pc + d
         }
-        lp.exp()
+        XCoordinate::LogPressure => {
+            // Newton on ln p + p/p1 = x (monotone, convex in ln p).
+            let k = f64::from(l.x_inverse_pressure_scale);
+            let mut lp = x.min(30.0);
+            for _ in 0..100 {
+                let p = lp.exp();
+                let f = lp + p * k - x;
+                let step = f / (1.0 + p * k);
+                lp -= step;
+                if step.abs() < 1e-15 * (1.0 + lp.abs()) {
+                    break;
+                }
+            }
+            lp.exp()
+        }
     }
 }
 
 /// Table coordinate x of a pressure.
 pub fn x_of_pressure(kind: SheetKind, l: &SinglePhaseLimits, p: f64) -> f64 {
-    if kind.high() {
-        sigma_of(p, f64::from(l.critical_pressure_pa))
-    } else {
-        p.ln() + p * f64::from(l.x_inverse_pressure_scale)
+    let pc = f64::from(l.critical_pressure_pa);
+    match kind.x_coordinate() {
+        XCoordinate::Pressure => p * 1.0e-6,
+        XCoordinate::Critical => {
+            ((p - pc) * f64::from(l.critical_inverse_scale_pa)).asinh()
+                + (p - pc) * f64::from(l.critical_inverse_linear_scale_pa)
+        }
+        XCoordinate::LogPressure => p.ln() + p * f64::from(l.x_inverse_pressure_scale),
     }
 }
 
@@ -701,10 +770,14 @@ pub fn generate_single_phase(c: &SinglePhaseConfig) -> Result<SinglePhaseGenerat
         return Err("interval counts >= 1 and samples_per_interval >= 2".into());
     }
     let pc = PC as f32;
-    let dp = 1.0e3;
-    let slope = (region4::saturation_temperature_k_unchecked(PC)
-        - region4::saturation_temperature_k_unchecked(PC - dp))
-        / dp;
+    // One-sided differences of the Region 4 equation below pc, to second
+    // order: T(pc − h) and T(pc − 2h).
+    let dp = 1.0e4;
+    let t0 = region4::saturation_temperature_k_unchecked(PC);
+    let t1 = region4::saturation_temperature_k_unchecked(PC - dp);
+    let t2 = region4::saturation_temperature_k_unchecked(PC - 2.0 * dp);
+    let slope = (3.0 * t0 - 4.0 * t1 + t2) / (2.0 * dp);
+    let curvature = 0.5 * (t0 - 2.0 * t1 + t2) / (dp * dp);
     let limits = SinglePhaseLimits {
         pressure_min_pa: c.pressure_min_pa as f32,
         pressure_max_pa: c.pressure_max_pa as f32,
@@ -717,7 +790,10 @@ pub fn generate_single_phase(c: &SinglePhaseConfig) -> Result<SinglePhaseGenerat
         critical_pressure_pa: pc,
         critical_temperature_k: TC as f32,
         split_slope_k_pa: slope as f32,
+        split_curvature_k_pa2: curvature as f32,
         x_inverse_pressure_scale: (1.0 / c.x_pressure_scale_pa) as f32,
+        critical_inverse_scale_pa: (1.0 / c.critical_scale_pa) as f32,
+        critical_inverse_linear_scale_pa: (1.0 / c.critical_linear_scale_pa) as f32,
     };
     let mut sheets = Vec::new();
     for kind in SheetKind::ALL {
@@ -808,7 +884,7 @@ fn generate_sheet(
             let (a, b) = (f(0.0), f(1.0));
             let mut row = Vec::with_capacity(uphi.len());
             for &w in &uphi {
-                if e.width < 1.0 {
+                if e.width < 0.05 {
                     // A thin strip (where an edge meets another): h is
                     // nearly linear in T across it and bisection on a
                     // nearly constant table would return noise, which the
@@ -938,6 +1014,24 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
         "X_INVERSE_PRESSURE_SCALE_PA",
         "1/p1 of the low sheets' coordinate x = ln(p/Pa) + p/p1, 1/Pa.",
         l.x_inverse_pressure_scale,
+    );
+    constant(
+        &mut body,
+        "SPLIT_CURVATURE_K_PA2",
+        "½·d²T_sat/dp² at the critical point, K/Pa²: the split is Tc + k·(p − pc) + c·(p − pc)².",
+        l.split_curvature_k_pa2,
+    );
+    constant(
+        &mut body,
+        "CRITICAL_INVERSE_SCALE_PA",
+        "1/p_s of the near-critical sheets' coordinate x = asinh((p − pc)/p_s), 1/Pa.",
+        l.critical_inverse_scale_pa,
+    );
+    constant(
+        &mut body,
+        "CRITICAL_INVERSE_LINEAR_SCALE_PA",
+        "1/p_l of the near-critical sheets' coordinate x = asinh((p − pc)/p_s) + (p − pc)/p_l, 1/Pa.",
+        l.critical_inverse_linear_scale_pa,
     );
     constant(&mut body, "CRITICAL_PRESSURE_PA", "Critical pressure, Pa (defines σ).", l.critical_pressure_pa);
     constant(&mut body, "CRITICAL_TEMPERATURE_K", "Critical temperature, K.", l.critical_temperature_k);
