@@ -58,7 +58,7 @@ use core::fmt;
 use crate::error::SaturationError;
 use crate::mixture::WetSteam;
 use crate::saturation;
-use crate::spline::SinglePhaseSheet;
+use crate::spline::{at_least, SinglePhaseSheet};
 use crate::tables::single_phase as table;
 use crate::units::{AbsolutePressure, Temperature};
 
@@ -271,6 +271,11 @@ const ENTROPY: usize = 2;
 const INVERSE_CP: usize = 3;
 const SPEED_OF_SOUND: usize = 4;
 const LN_VISCOSITY: usize = 5;
+
+/// Smallest 1/cp used, kg·K/J: caps cp at 1e10 J/(kg·K), as the saturation
+/// tables do, should the spline of 1/cp approach zero next to the critical
+/// point.
+const INVERSE_CP_FLOOR: f32 = 1e-10;
 
 /// Narrowest sheet width used, K (a sheet vanishes where two of its edges
 /// meet, e.g. at the triple point or at p_b).
@@ -502,7 +507,7 @@ fn state_on_sheet(
         specific_volume_m3_kg: 1.0 / density,
         enthalpy_j_kg: q[ENTHALPY],
         entropy_j_kgk: q[ENTROPY],
-        cp_j_kgk: 1.0 / q[INVERSE_CP],
+        cp_j_kgk: 1.0 / at_least(q[INVERSE_CP], INVERSE_CP_FLOOR),
         speed_of_sound_m_s: w,
         isentropic_exponent: density * w * w / p_pa,
         viscosity_pa_s: libm::expf(q[LN_VISCOSITY]),
@@ -791,7 +796,9 @@ fn state_across_phases(
             let v_l = sat.liquid.specific_volume_m3_kg;
             let v = v_l + x * (sat.vapour.specific_volume_m3_kg - v_l);
             return Ok(FluidState::WetSteam(WetSteam {
-                pressure,
+                // The saturation tables' pressure (the input, or their
+                // lowest pressure for an input a hair below it).
+                pressure: sat.pressure,
                 temperature: sat.temperature,
                 dryness_fraction: x,
                 enthalpy_j_kg: sat.liquid.enthalpy_j_kg + x * sat.latent_heat_j_kg,
