@@ -659,7 +659,21 @@ pub fn pressure_range(kind: SheetKind, l: &SinglePhaseLimits) -> (f64, f64) {
     if kind.high() {
         (pb.max(lo), hi.max(pb + 1.0))
     } else {
-        (lo, hi.min(pb))
+        // Liquid exists only above p_sat(T_min), vapour only below
+        // p_sat(T_max) (for an envelope smaller than the default).
+        let (lo, hi) = match kind {
+            SheetKind::LiquidLow => (
+                lo.max(region4::saturation_pressure_pa_unchecked(f64::from(l.temperature_min_k))),
+                hi,
+            ),
+            _ => (
+                lo,
+                hi.min(region4::saturation_pressure_pa_unchecked(
+                    f64::from(l.temperature_max_k).min(T_REGION3),
+                )),
+            ),
+        };
+        (lo.min(hi.min(pb) - 1.0), hi.min(pb))
     }
 }
 
@@ -812,13 +826,31 @@ fn generate_sheet(
     l: &SinglePhaseLimits,
 ) -> Result<GeneratedSheet, String> {
     let k = kind.index();
-    let [nx, ny] = c.intervals[k];
+    let [nx_full, ny] = c.intervals[k];
     let (p_lo, p_hi) = pressure_range(kind, l);
     let (xa, xb) = {
         let a = x_of_pressure(kind, l, p_lo);
         let b = x_of_pressure(kind, l, p_hi);
         (a.min(b), a.max(b))
     };
+    // A smaller envelope keeps the knot spacing of the default one: the
+    // interval count in x shrinks with the share of the default x range
+    // covered (a sheet wholly outside the envelope, never reached, gets one
+    // interval).
+    let default_limits = SinglePhaseLimits {
+        pressure_min_pa: 611.657,
+        pressure_max_pa: 25.0e6,
+        ..*l
+    };
+    let (da, db) = pressure_range(kind, &default_limits);
+    let full = (x_of_pressure(kind, l, db) - x_of_pressure(kind, l, da)).abs();
+    let outside = p_hi <= p_lo + 1.0 || (kind.high() && l.pressure_max_pa <= l.boundary_pressure_pa);
+    let nx = if outside {
+        1
+    } else {
+        ((nx_full as f64 * (xb - xa) / full).ceil() as usize).clamp(2, nx_full)
+    };
+    let ny = if outside { 1 } else { ny };
     let x_start = xa as f32;
     let x_inverse_step = (nx as f64 / (xb - xa)) as f32;
     let s = c.samples_per_interval;
@@ -837,14 +869,14 @@ fn generate_sheet(
             x_start,
             x_inverse_step,
             x_intervals: nx,
-            y_intervals: c.inverse_intervals[k],
+            y_intervals: 1,
             coefficients: Vec::new(),
         },
         y_of_entropy: Sheet {
             x_start,
             x_inverse_step,
             x_intervals: nx,
-            y_intervals: c.inverse_intervals[k],
+            y_intervals: 1,
             coefficients: Vec::new(),
         },
         cluster_base_k: c.cluster_base_k[k] as f32,
@@ -873,7 +905,7 @@ fn generate_sheet(
     let uyl: Vec<f64> = uy.clone();
     shell.properties = fit_sheet(x_start, x_inverse_step, nx, ny, &ux, &uyl, &values)?;
     // Inverse sheets: y over (x, φ) of the fitted forward sheet.
-    let ni = c.inverse_intervals[k];
+    let ni = if outside { 1 } else { c.inverse_intervals[k] };
     let uphi: Vec<f64> = (0..=ni * s).map(|j| j as f64 / s as f64).collect();
     for column in [1usize, 2] {
         let mut inv = Vec::with_capacity(ux.len());
@@ -1133,6 +1165,10 @@ pub fn measure_single_phase(g: &SinglePhaseGenerated, points: usize) -> Result<[
     let mut out = [[0.0f64; 7]; 3];
     for s in &g.sheets {
         let kind = s.kind;
+        if kind.high() && l.pressure_max_pa <= l.boundary_pressure_pa {
+            // Outside the envelope: never reached.
+            continue;
+        }
         let mut worst = [(0.0f64, 0.0f64, 0.0f64); 7];
         let (p_lo, p_hi) = pressure_range(kind, l);
         let (xa, xb) = (x_of_pressure(kind, l, p_lo), x_of_pressure(kind, l, p_hi));
