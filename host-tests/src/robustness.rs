@@ -53,11 +53,6 @@ use vapora_kernel::accuracy::{
 use vapora_kernel::integrity::{
     self, check_single_phase_checksums, SheetData, SinglePhaseTables, TableData, TableSet,
 };
-use vapora_kernel::single_phase::{
-    compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
-    state_at_pressure_temperature, superheated_vapour, FluidState, SinglePhaseState,
-};
-use vapora_kernel::tables::single_phase as sp_table;
 use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
 use vapora_kernel::quality::{
     phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
@@ -69,10 +64,15 @@ use vapora_kernel::saturation::{
     SaturatedProperty, SaturatedState, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K,
     TEMPERATURE_MIN_K,
 };
+use vapora_kernel::single_phase::{
+    compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
+    state_at_pressure_temperature, superheated_vapour, FluidState, SinglePhaseState,
+};
 use vapora_kernel::spline::{
     cubic, BicubicSheet, OctaveCubicTable, SinglePhaseSheet, UniformCubicTable,
 };
 use vapora_kernel::tables::saturation as table;
+use vapora_kernel::tables::single_phase as sp_table;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
 /// Highest density accepted on the line, kg/m³ (ρ' peaks at 999.97 kg/m³
@@ -462,8 +462,8 @@ pub fn check_single_phase(s: &SinglePhaseState, vapour: bool) -> Result<(), Viol
         VISCOSITY_RANGE_PA_S.1,
     )?;
     match s.saturation_margin_k {
-        Some(m) if vapour && !(m >= 0.0) => Err(format!("vapour with margin {m} K")),
-        Some(m) if !vapour && !(m <= 0.0) => Err(format!("liquid with margin {m} K")),
+        Some(m) if vapour && (m < 0.0 || m.is_nan()) => Err(format!("vapour with margin {m} K")),
+        Some(m) if !vapour && (m > 0.0 || m.is_nan()) => Err(format!("liquid with margin {m} K")),
         Some(m) => in_range("saturation margin", m, -900.0, 900.0),
         None if s.pressure.as_pa() < 22.0e6 => {
             Err(format!("no margin at {} Pa", s.pressure.as_pa()))
@@ -517,7 +517,9 @@ fn check_sheet_evaluate<const Q: usize>(
             }
         }
         if sheet.evaluate_one(x, y, Q).is_some() {
-            return Err(format!("{name}.evaluate_one(.., {Q}) past the last quantity"));
+            return Err(format!(
+                "{name}.evaluate_one(.., {Q}) past the last quantity"
+            ));
         }
         Ok(())
     } else {

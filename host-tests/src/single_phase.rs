@@ -72,10 +72,19 @@ impl Maxima {
             ("entropy_j_kgk", self.entropy_j_kgk),
             ("cp_relative", self.cp_relative),
             ("speed_of_sound_relative", self.speed_of_sound_relative),
-            ("isentropic_exponent_relative", self.isentropic_exponent_relative),
+            (
+                "isentropic_exponent_relative",
+                self.isentropic_exponent_relative,
+            ),
             ("viscosity_relative", self.viscosity_relative),
-            ("temperature_from_enthalpy_k", self.temperature_from_enthalpy_k),
-            ("temperature_from_entropy_k", self.temperature_from_entropy_k),
+            (
+                "temperature_from_enthalpy_k",
+                self.temperature_from_enthalpy_k,
+            ),
+            (
+                "temperature_from_entropy_k",
+                self.temperature_from_entropy_k,
+            ),
         ]
     }
 }
@@ -107,11 +116,15 @@ pub fn deviations_at(p: f64, t: f64) -> Option<[f64; 9]> {
     let t_h = state_at_pressure_enthalpy(pk, reference.enthalpy_j_kg as f32)
         .ok()
         .and_then(single)
-        .map_or(f64::INFINITY, |s| (f64::from(s.temperature.as_kelvin()) - t).abs());
+        .map_or(f64::INFINITY, |s| {
+            (f64::from(s.temperature.as_kelvin()) - t).abs()
+        });
     let t_s = state_at_pressure_entropy(pk, reference.entropy_j_kgk as f32)
         .ok()
         .and_then(single)
-        .map_or(f64::INFINITY, |s| (f64::from(s.temperature.as_kelvin()) - t).abs());
+        .map_or(f64::INFINITY, |s| {
+            (f64::from(s.temperature.as_kelvin()) - t).abs()
+        });
     let kappa = reference.density_kg_m3 * reference.speed_of_sound_m_s.powi(2) / p;
     Some([
         rel(s.density_kg_m3, reference.density_kg_m3),
@@ -250,7 +263,7 @@ pub fn exceeding(measured: &Maxima, bound: &Maxima) -> Vec<String> {
         .fields()
         .iter()
         .zip(bound.fields())
-        .filter(|((_, m), (_, b))| !(m <= b))
+        .filter(|((_, m), (_, b))| m > b || m.is_nan())
         .map(|((name, m), (_, b))| format!("{name}: {m:.3e} > {b:.3e}"))
         .collect()
 }

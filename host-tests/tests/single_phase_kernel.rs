@@ -107,8 +107,12 @@ fn temperature_of(s: FluidState) -> f32 {
 #[test]
 fn pressure_enthalpy_and_entropy_round_trips_across_the_phases() {
     let mut worst = 0.0f32;
-    for &pa in &[1.0e3, 1.0e5, 1.0e6, 5.0e6, 15.0e6, 17.0e6, 20.0e6, 23.0e6, 25.0e6] {
-        for &tk in &[280.0, 330.0, 420.0, 500.0, 600.0, 640.0, 660.0, 700.0, 850.0, 1050.0] {
+    for &pa in &[
+        1.0e3, 1.0e5, 1.0e6, 5.0e6, 15.0e6, 17.0e6, 20.0e6, 23.0e6, 25.0e6,
+    ] {
+        for &tk in &[
+            280.0, 330.0, 420.0, 500.0, 600.0, 640.0, 660.0, 700.0, 850.0, 1050.0,
+        ] {
             let Ok(state) = state_at_pressure_temperature(p(pa), t(tk)) else {
                 continue;
             };

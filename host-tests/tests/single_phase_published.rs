@@ -15,10 +15,46 @@ use vapora_tables::if97::pt;
 type Row = (&'static str, f64, f64, f64, f64, f64, f64, f64);
 
 const POINTS: [Row; 4] = [
-    ("IAPWS R7-97(2012) Table 5", 3.0, 300.0, 0.100215168e-2, 0.115331273e3, 0.392294792, 0.417301218e1, 0.150773921e4),
-    ("IAPWS R7-97(2012) Table 5", 3.0, 500.0, 0.120241800e-2, 0.975542239e3, 0.258041912e1, 0.465580682e1, 0.124071337e4),
-    ("IAPWS R7-97(2012) Table 15", 0.0035, 300.0, 0.394913866e2, 0.254991145e4, 0.852238967e1, 0.191300162e1, 0.427920172e3),
-    ("IAPWS R7-97(2012) Table 15", 0.0035, 700.0, 0.923015898e2, 0.333568375e4, 0.101749996e2, 0.208141274e1, 0.644289068e3),
+    (
+        "IAPWS R7-97(2012) Table 5",
+        3.0,
+        300.0,
+        0.100215168e-2,
+        0.115331273e3,
+        0.392294792,
+        0.417301218e1,
+        0.150773921e4,
+    ),
+    (
+        "IAPWS R7-97(2012) Table 5",
+        3.0,
+        500.0,
+        0.120241800e-2,
+        0.975542239e3,
+        0.258041912e1,
+        0.465580682e1,
+        0.124071337e4,
+    ),
+    (
+        "IAPWS R7-97(2012) Table 15",
+        0.0035,
+        300.0,
+        0.394913866e2,
+        0.254991145e4,
+        0.852238967e1,
+        0.191300162e1,
+        0.427920172e3,
+    ),
+    (
+        "IAPWS R7-97(2012) Table 15",
+        0.0035,
+        700.0,
+        0.923015898e2,
+        0.333568375e4,
+        0.101749996e2,
+        0.208141274e1,
+        0.644289068e3,
+    ),
 ];
 
 // IAPWS R7-97(2012) Table 33, T = 650 K, ρ = 200 kg/m³: p = 22.2930643 MPa
@@ -53,15 +89,30 @@ fn if97_verification_points_in_the_envelope() {
         let k = state(p, t);
         let rel = |a: f32, e: f64| ((f64::from(a) - e) / e).abs();
         let checks = [
-            ("v", rel(k.specific_volume_m3_kg, v), b.density_relative * 1.01),
-            ("h", (f64::from(k.enthalpy_j_kg) - h * 1e3).abs(), b.enthalpy_j_kg),
-            ("s", (f64::from(k.entropy_j_kgk) - s * 1e3).abs(), b.entropy_j_kgk),
+            (
+                "v",
+                rel(k.specific_volume_m3_kg, v),
+                b.density_relative * 1.01,
+            ),
+            (
+                "h",
+                (f64::from(k.enthalpy_j_kg) - h * 1e3).abs(),
+                b.enthalpy_j_kg,
+            ),
+            (
+                "s",
+                (f64::from(k.entropy_j_kgk) - s * 1e3).abs(),
+                b.entropy_j_kgk,
+            ),
             ("cp", rel(k.cp_j_kgk, cp * 1e3), b.cp_relative),
             ("w", rel(k.speed_of_sound_m_s, w), b.speed_of_sound_relative),
         ];
         for (name, dev, bound) in checks {
             println!("{source} ({p_mpa} MPa, {t} K) {name}: {dev:.3e} (bound {bound:.1e})");
-            assert!(dev <= bound, "{source} ({p_mpa} MPa, {t} K): {name} off by {dev:e} > {bound:e}");
+            assert!(
+                dev <= bound,
+                "{source} ({p_mpa} MPa, {t} K): {name} off by {dev:e} > {bound:e}"
+            );
         }
     }
 }

@@ -17,11 +17,18 @@ fn regenerating_gives_the_committed_single_phase_file_byte_for_byte() {
         .find_map(|l| l.strip_prefix("// Settings: "))
         .expect("settings line");
     let config = SinglePhaseConfig::parse(settings).expect("settings parse");
-    assert_eq!(config, SinglePhaseConfig::default(), "the committed file uses the defaults");
+    assert_eq!(
+        config,
+        SinglePhaseConfig::default(),
+        "the committed file uses the defaults"
+    );
     let g = generate_single_phase(&config).expect("generation succeeds");
     let text = emit_single_phase(&g);
     if text != COMMITTED {
-        let first = text.lines().zip(COMMITTED.lines()).position(|(a, b)| a != b);
+        let first = text
+            .lines()
+            .zip(COMMITTED.lines())
+            .position(|(a, b)| a != b);
         panic!(
             "regenerated tables differ from kernel/src/tables/single_phase.rs (first differing line: {first:?}); \
              regenerate with the command in its header"
@@ -36,7 +43,7 @@ fn single_phase_header_checksum_matches_the_content() {
     let line_end = start + COMMITTED[start..].find('\n').expect("line ends");
     let stated =
         u32::from_str_radix(&COMMITTED[start + CHECKSUM_PREFIX.len()..line_end], 16).unwrap();
-    assert_eq!(checksum(COMMITTED[line_end + 1..].as_bytes()), stated);
+    assert_eq!(checksum(&COMMITTED.as_bytes()[line_end + 1..]), stated);
 }
 
 #[test]
@@ -52,9 +59,21 @@ fn every_sheet_is_complete_and_all_fit_the_budget() {
         &t::VAPOUR_HIGH,
     ] {
         for (len, nx, ny) in [
-            (s.properties.coefficients.len(), s.properties.x_intervals, s.properties.y_intervals),
-            (s.y_of_enthalpy.coefficients.len(), s.y_of_enthalpy.x_intervals, s.y_of_enthalpy.y_intervals),
-            (s.y_of_entropy.coefficients.len(), s.y_of_entropy.x_intervals, s.y_of_entropy.y_intervals),
+            (
+                s.properties.coefficients.len(),
+                s.properties.x_intervals,
+                s.properties.y_intervals,
+            ),
+            (
+                s.y_of_enthalpy.coefficients.len(),
+                s.y_of_enthalpy.x_intervals,
+                s.y_of_enthalpy.y_intervals,
+            ),
+            (
+                s.y_of_entropy.coefficients.len(),
+                s.y_of_entropy.x_intervals,
+                s.y_of_entropy.y_intervals,
+            ),
         ] {
             assert_eq!(len, (nx as usize + 3) * (ny as usize + 3));
         }
@@ -79,5 +98,10 @@ fn a_small_envelope_can_be_built() {
         c.set(k, v).unwrap();
     }
     let g = generate_single_phase(&c).expect("small envelope");
-    assert!(g.size_bytes() < generate_single_phase(&SinglePhaseConfig::default()).unwrap().size_bytes());
+    assert!(
+        g.size_bytes()
+            < generate_single_phase(&SinglePhaseConfig::default())
+                .unwrap()
+                .size_bytes()
+    );
 }

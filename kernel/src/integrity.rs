@@ -540,8 +540,18 @@ pub fn check_spot_points() -> Result<(), IntegrityError> {
         .and_then(|(p, t)| superheated_vapour(p, t).ok())
         .map_or(f32::NAN, |s| s.specific_volume_m3_kg);
     for (table, input, expected, computed) in [
-        (TableId::LiquidLow, 3.0e6, 0.100_215_168e-2_f64 as f32, liquid),
-        (TableId::VapourLow, 3.5e3, 0.923_015_898e2_f64 as f32, vapour),
+        (
+            TableId::LiquidLow,
+            3.0e6,
+            0.100_215_168e-2_f64 as f32,
+            liquid,
+        ),
+        (
+            TableId::VapourLow,
+            3.5e3,
+            0.923_015_898e2_f64 as f32,
+            vapour,
+        ),
     ] {
         let within = (computed - expected).abs() <= 1e-4 * expected;
         if !within {

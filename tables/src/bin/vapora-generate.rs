@@ -33,7 +33,9 @@ fn run_single_phase(mut args: impl Iterator<Item = String>) -> Result<(), String
         if flag == "--output" {
             output = Some(value);
         } else if flag == "--measure" {
-            measure_points = value.parse().map_err(|_| format!("bad --measure {value}"))?;
+            measure_points = value
+                .parse()
+                .map_err(|_| format!("bad --measure {value}"))?;
         } else if let Some(key) = flag.strip_prefix("--") {
             config.set(&key.replace('-', "_"), &value)?;
         } else {
@@ -44,15 +46,29 @@ fn run_single_phase(mut args: impl Iterator<Item = String>) -> Result<(), String
     eprintln!("settings: {}", g.config.describe());
     eprintln!(
         "envelope: {} Pa to {} Pa, {} K to {} K",
-        g.limits.pressure_min_pa, g.limits.pressure_max_pa, g.limits.temperature_min_k, g.limits.temperature_max_k
+        g.limits.pressure_min_pa,
+        g.limits.pressure_max_pa,
+        g.limits.temperature_min_k,
+        g.limits.temperature_max_k
     );
-    eprintln!("coefficient flash: {} bytes ({:.1} KiB)", g.size_bytes(), g.size_bytes() as f64 / 1024.0);
+    eprintln!(
+        "coefficient flash: {} bytes ({:.1} KiB)",
+        g.size_bytes(),
+        g.size_bytes() as f64 / 1024.0
+    );
     for s in &g.sheets {
         eprintln!("  {:22} {:6} bytes", s.kind.name(), s.size_bytes());
     }
     if measure_points > 0 {
         let m = sp::measure_single_phase(&g, measure_points)?;
-        for (zone, z) in ["far from critical", "ring (15 K / 3 MPa)", "box (5 K / 1 MPa)"].iter().zip(m) {
+        for (zone, z) in [
+            "far from critical",
+            "ring (15 K / 3 MPa)",
+            "box (5 K / 1 MPa)",
+        ]
+        .iter()
+        .zip(m)
+        {
             eprintln!(
                 "measured, {zone}: rho {:.2e} h {:.2e} J/kg s {:.2e} cp {:.2e} w {:.2e} mu {:.2e} T(p,h) {:.2e} K",
                 z[0], z[1], z[2], z[3], z[4], z[5], z[6]

@@ -558,8 +558,7 @@ impl Edges {
 
     /// Temperature at y.
     pub fn t_of(&self, y: f64) -> f64 {
-        self.t0
-            + self.direction * self.delta * (y * (self.width / self.delta).ln_1p()).exp_m1()
+        self.t0 + self.direction * self.delta * (y * (self.width / self.delta).ln_1p()).exp_m1()
     }
 }
 
@@ -569,7 +568,8 @@ impl Edges {
 pub fn cluster_delta(l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64) -> f64 {
     let d = (p - f64::from(g.cluster_reference_pa)) * f64::from(l.critical_inverse_scale_pa);
     f64::from(g.cluster_base_k)
-        + f64::from(g.cluster_slope_k_pa) * (d * d + 1.0).sqrt() / f64::from(l.critical_inverse_scale_pa)
+        + f64::from(g.cluster_slope_k_pa) * (d * d + 1.0).sqrt()
+            / f64::from(l.critical_inverse_scale_pa)
 }
 
 /// The liquid/vapour edge: T_sat(p) below pc, and from pc up the
@@ -663,7 +663,9 @@ pub fn pressure_range(kind: SheetKind, l: &SinglePhaseLimits) -> (f64, f64) {
         // p_sat(T_max) (for an envelope smaller than the default).
         let (lo, hi) = match kind {
             SheetKind::LiquidLow => (
-                lo.max(region4::saturation_pressure_pa_unchecked(f64::from(l.temperature_min_k))),
+                lo.max(region4::saturation_pressure_pa_unchecked(f64::from(
+                    l.temperature_min_k,
+                ))),
                 hi,
             ),
             _ => (
@@ -774,11 +776,17 @@ pub fn generate_single_phase(c: &SinglePhaseConfig) -> Result<SinglePhaseGenerat
         && c.temperature_min_k < c.temperature_max_k
         && c.temperature_max_k <= 1073.15)
     {
-        return Err("need 611.657 <= pressure_min_pa < pressure_max_pa <= 25e6 and \
+        return Err(
+            "need 611.657 <= pressure_min_pa < pressure_max_pa <= 25e6 and \
                     273.16 <= temperature_min_k < temperature_max_k <= 1073.15"
-            .into());
+                .into(),
+        );
     }
-    if c.intervals.iter().flatten().chain(&c.inverse_intervals).any(|&n| n == 0)
+    if c.intervals
+        .iter()
+        .flatten()
+        .chain(&c.inverse_intervals)
+        .any(|&n| n == 0)
         || c.samples_per_interval < 2
     {
         return Err("interval counts >= 1 and samples_per_interval >= 2".into());
@@ -844,7 +852,8 @@ fn generate_sheet(
     };
     let (da, db) = pressure_range(kind, &default_limits);
     let full = (x_of_pressure(kind, l, db) - x_of_pressure(kind, l, da)).abs();
-    let outside = p_hi <= p_lo + 1.0 || (kind.high() && l.pressure_max_pa <= l.boundary_pressure_pa);
+    let outside =
+        p_hi <= p_lo + 1.0 || (kind.high() && l.pressure_max_pa <= l.boundary_pressure_pa);
     let nx = if outside {
         1
     } else {
@@ -897,7 +906,8 @@ fn generate_sheet(
             // region and root choice is unambiguous.
             let d_max = e.width;
             let t = e.t_of(y);
-            let d = (e.direction * (t - e.t0)).clamp(1e-6f64.min(d_max * 0.5), d_max - 1e-9f64.min(d_max * 0.5));
+            let d = (e.direction * (t - e.t0))
+                .clamp(1e-6f64.min(d_max * 0.5), d_max - 1e-9f64.min(d_max * 0.5));
             row.push(quantities(kind, p, e.t0 + e.direction * d)?);
         }
         values.push(row);
@@ -1025,10 +1035,30 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
         g.config.temperature_max_k
     ));
     body.push_str("use crate::spline::{BicubicSheet, SinglePhaseSheet};\n\n");
-    constant(&mut body, "PRESSURE_MIN_PA", "Lowest pressure of the tables, Pa.", l.pressure_min_pa);
-    constant(&mut body, "PRESSURE_MAX_PA", "Highest pressure of the tables, Pa.", l.pressure_max_pa);
-    constant(&mut body, "TEMPERATURE_MIN_K", "Lowest temperature of the tables, K.", l.temperature_min_k);
-    constant(&mut body, "TEMPERATURE_MAX_K", "Highest temperature of the tables, K.", l.temperature_max_k);
+    constant(
+        &mut body,
+        "PRESSURE_MIN_PA",
+        "Lowest pressure of the tables, Pa.",
+        l.pressure_min_pa,
+    );
+    constant(
+        &mut body,
+        "PRESSURE_MAX_PA",
+        "Highest pressure of the tables, Pa.",
+        l.pressure_max_pa,
+    );
+    constant(
+        &mut body,
+        "TEMPERATURE_MIN_K",
+        "Lowest temperature of the tables, K.",
+        l.temperature_min_k,
+    );
+    constant(
+        &mut body,
+        "TEMPERATURE_MAX_K",
+        "Highest temperature of the tables, K.",
+        l.temperature_max_k,
+    );
     constant(
         &mut body,
         "BOUNDARY_PRESSURE_PA",
@@ -1065,8 +1095,18 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
         "1/p_l of the near-critical sheets' coordinate x = asinh((p − pc)/p_s) + (p − pc)/p_l, 1/Pa.",
         l.critical_inverse_linear_scale_pa,
     );
-    constant(&mut body, "CRITICAL_PRESSURE_PA", "Critical pressure, Pa (defines σ).", l.critical_pressure_pa);
-    constant(&mut body, "CRITICAL_TEMPERATURE_K", "Critical temperature, K.", l.critical_temperature_k);
+    constant(
+        &mut body,
+        "CRITICAL_PRESSURE_PA",
+        "Critical pressure, Pa (defines σ).",
+        l.critical_pressure_pa,
+    );
+    constant(
+        &mut body,
+        "CRITICAL_TEMPERATURE_K",
+        "Critical temperature, K.",
+        l.critical_temperature_k,
+    );
     constant(
         &mut body,
         "SPLIT_SLOPE_K_PA",
@@ -1082,7 +1122,9 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
             s.y_of_entropy.coefficients.len(),
             s.size_bytes()
         ));
-        body.push_str(&format!("pub static {name}: SinglePhaseSheet = SinglePhaseSheet {{\n"));
+        body.push_str(&format!(
+            "pub static {name}: SinglePhaseSheet = SinglePhaseSheet {{\n"
+        ));
         body.push_str("    properties: ");
         sheet_source(&mut body, &s.properties);
         body.push_str(",\n    y_of_enthalpy: ");
@@ -1160,7 +1202,10 @@ pub type Maxima = [f64; 7];
 ///
 /// # Errors
 /// When the formulation fails at a point.
-pub fn measure_single_phase(g: &SinglePhaseGenerated, points: usize) -> Result<[Maxima; 3], String> {
+pub fn measure_single_phase(
+    g: &SinglePhaseGenerated,
+    points: usize,
+) -> Result<[Maxima; 3], String> {
     let l = &g.limits;
     let mut out = [[0.0f64; 7]; 3];
     for s in &g.sheets {
@@ -1191,7 +1236,10 @@ pub fn measure_single_phase(g: &SinglePhaseGenerated, points: usize) -> Result<[
                 let m = &mut out[z];
                 let rel = |a: f64, b: f64| ((a - b) / b).abs();
                 // T from (p, h) through the inverse sheet.
-                let (a, b) = (s.properties.evaluate(x, 0.0)[1], s.properties.evaluate(x, 1.0)[1]);
+                let (a, b) = (
+                    s.properties.evaluate(x, 0.0)[1],
+                    s.properties.evaluate(x, 1.0)[1],
+                );
                 let phi = (want[1] - a) / (b - a);
                 let yh = s.y_of_enthalpy.evaluate(x, e.psi_of(phi.clamp(0.0, 1.0)))[0];
                 let errs = [
