@@ -22,8 +22,8 @@ use core::hint::black_box;
 use vapora_kernel::saturation::{
     SaturatedProperty, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K, TEMPERATURE_MIN_K,
 };
-use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
 use vapora_kernel::single_phase;
+use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 use vapora_tables::if97::{region4, saturation as if97_saturation};
 

@@ -2,7 +2,7 @@
 // Do not edit by hand. Regenerate with:
 //   cargo run -p vapora-tables --features generator --bin vapora-generate -- single-phase --output kernel/src/tables/single_phase.rs
 // Settings: pressure_min_pa=611.657 pressure_max_pa=25000000 temperature_min_k=273.16 temperature_max_k=1073.15 intervals=36x28,24x36,14x30,32x14,32x28,20x26 inverse_intervals=24,24,18,16,32,22 cluster_base_k=0.5,60,100,0.1,0.1,20 cluster_k_per_mpa=1,0,5,1,1,1 cluster_reference_mpa=22.064,22.064,16.53,22.064,22.064,16.53 samples_per_interval=4 x_pressure_scale_pa=2000000 critical_scale_pa=500000 critical_linear_scale_pa=4000000
-// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0xf8bb5898
+// Content checksum (CRC-32/ISO-HDLC of every byte after this line): 0xc812a641
 //! The generated single-phase tables: six tensor-product cubic B-spline
 //! sheets (and their inverse sheets for (p, h) and (p, s)), produced by
 //! `vapora-generate single-phase` from the IAPWS-IF97 formulation in f64.
@@ -46,7 +46,7 @@ pub const CRITICAL_INVERSE_SCALE_PA: f32 = 2e-6;
 /// 1/p_l of the near-critical sheets' coordinate x = asinh((p − pc)/p_s) + (p − pc)/p_l, 1/Pa.
 pub const CRITICAL_INVERSE_LINEAR_SCALE_PA: f32 = 2.5e-7;
 
-/// Critical pressure, Pa (defines σ).
+/// Critical pressure, Pa (origin of the near-critical x coordinate).
 pub const CRITICAL_PRESSURE_PA: f32 = 2.2064e7;
 
 /// Critical temperature, K.

@@ -10,33 +10,37 @@
 //!
 //! | sheet | pressure | T0(p) (y = 0) | T1(p) (y = 1) | x | IF97 |
 //! |---|---|---|---|---|---|
-//! | vapour, low | p_min … p_b | T_sat(p) | T_max | ln p | 2 |
-//! | liquid, low | p_min … p_b | T_sat(p) | T_min | ln p | 1 |
-//! | liquid, high | p_b … p_max | 623.15 K | T_min | σ | 1 |
-//! | liquid, near-critical | p_b … p_max | T_edge(p) | 623.15 K | σ | 3 |
-//! | vapour, near-critical | p_b … p_max | T_edge(p) | T_B23(p) | σ | 3 |
-//! | vapour, high | p_b … p_max | T_B23(p) | T_max | σ | 2 |
+//! | vapour, low | p_min … p_b | T_sat(p) | T_max | ln p + p/p1 | 2 |
+//! | liquid, low | p_min … p_b | T_sat(p) | T_min | ln p + p/p1 | 1 |
+//! | liquid, high | p_b … p_max | 623.15 K | T_min | p/MPa | 1 |
+//! | liquid, near-critical | p_b … p_max | T_edge(p) | 623.15 K | asinh | 3 |
+//! | vapour, near-critical | p_b … p_max | T_edge(p) | T_B23(p) | asinh | 3 |
+//! | vapour, high | p_b … p_max | T_B23(p) | T_max | p/MPa | 2 |
 //!
-//! p_b = p_sat(623.15 K) = 16.529 MPa (first f32 above it), σ = sign(pc − p)·√|pc − p|
-//! (√Pa; properties along the saturation line of IF97's analytic Region 3
-//! behave like √(pc − p) near the critical point). T_edge(p) is T_sat(p)
-//! below pc and, at and above pc, the straight continuation
-//! Tc + k·(p − pc) with k = dT_sat/dp at pc (a stand-in for the
+//! p_b = p_sat(623.15 K) = 16.529 MPa (first f32 above it); "asinh" is
+//! x = asinh((p − pc)/p_s) + (p − pc)/p_l, smooth through pc with the knots
+//! crowded towards it (see [`XCoordinate`]). T_edge(p) is T_sat(p) below pc
+//! and, at and above pc, the continuation Tc + k·(p − pc) + c·(p − pc)² with
+//! the slope k and curvature c of the saturation line at pc (close to the
 //! pseudo-critical line, where cp peaks); the "liquid" and "vapour" of the
 //! kernel above pc are the fluid below and above that line.
 //!
 //! The position between the edges is stretched logarithmically towards
 //! T0: with d = |T − T0| and D = |T1 − T0|,
-//! y = ln(1 + d/δ)/ln(1 + D/δ), δ(p) = δ_base + δ_slope·|p − pc|. δ shrinks
-//! towards the critical point, where the properties change fastest next to
-//! saturation (or the pseudo-critical line).
+//! y = ln(1 + d/δ)/ln(1 + D/δ), δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_s²)
+//! ([`cluster_delta`]). δ shrinks towards p_ref (pc, or p_b where the
+//! 623.15 K and B23 edges meet saturation), where the properties change
+//! fastest next to the edge.
 //!
 //! Each sheet holds six quantities per B-spline coefficient: ρ (or ρ/p for
-//! the vapour sheets away from the critical point), h, s, 1/cp, w, ln μ; and two
-//! inverse sheets with one quantity each: y as a function of (x, φ_h) and of
-//! (x, φ_s), φ the enthalpy (entropy) fraction between the sheet's own edges
-//! h(x, 0) and h(x, 1). The inverse sheets are fitted to the f32 forward
-//! sheet itself, so (p, h) and the (p, T) state agree.
+//! the vapour sheets outside Region 3), h, s, 1/cp, w, ln μ; and two
+//! inverse sheets with one quantity each: y as a function of (x, ψ_h) and of
+//! (x, ψ_s), ψ = ln(1 + φ·D/δ)/ln(1 + D/δ) the stretched enthalpy (entropy)
+//! fraction φ between the sheet's own edges h(x, 0) and h(x, 1). The inverse
+//! sheets are fitted to the f32 forward sheet itself (bisection on it), so
+//! (p, h) and the (p, T) state agree. All fits are least-squares tensor
+//! products (separable: along y for every x sample, then along x), four
+//! samples per interval and direction.
 
 use std::string::String;
 use std::vec::Vec;
@@ -1098,7 +1102,7 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
     constant(
         &mut body,
         "CRITICAL_PRESSURE_PA",
-        "Critical pressure, Pa (defines σ).",
+        "Critical pressure, Pa (origin of the near-critical x coordinate).",
         l.critical_pressure_pa,
     );
     constant(
