@@ -34,7 +34,7 @@
 //! (p_s = 0.5 MPa, p_l = 4 MPa) in Region 3, smooth through pc with the
 //! knots crowded towards it; and a temperature coordinate that follows the
 //! sheet's edges T0(p) and T1(p): with d = |T − T0| and D = |T1 − T0|,
-//! y = ln(1 + d/δ)/ln(1 + D/δ), δ = δ_base + δ_slope·√((p − p_ref)² + p_s²),
+//! y = ln(1 + d/δ)/ln(1 + D/δ), δ = δ_base + δ_slope·√((p − p_ref)² + p_m²) (p_m = 0.5 MPa),
 //! which crowds the knots towards saturation as the critical point nears.
 //! Above pc the split T_split(p) = Tc + k·(p − pc) + c·(p − pc)² has the
 //! slope and curvature of the saturation line at pc, so the coordinates are
@@ -384,12 +384,12 @@ impl Geometry {
         } else {
             MIN_WIDTH_K
         };
-        // δ = δ_base + δ_slope·√((p − p_ref)² + p_s²), in units of p_s.
-        let d = (p_pa - data.cluster_reference_pa) * table::CRITICAL_INVERSE_SCALE_PA;
+        // δ = δ_base + δ_slope·√((p − p_ref)² + p_m²), in units of p_m.
+        let d = (p_pa - data.cluster_reference_pa) * table::CLUSTER_INVERSE_SMOOTHING_PA;
         let delta = data.cluster_base_k
             + data.cluster_slope_k_pa
                 * libm::sqrtf(d * d + 1.0)
-                * (1.0 / table::CRITICAL_INVERSE_SCALE_PA);
+                * (1.0 / table::CLUSTER_INVERSE_SMOOTHING_PA);
         Self {
             x,
             t0,

@@ -138,6 +138,8 @@ pub struct SinglePhaseConfig {
     pub critical_scale_pa: f64,
     /// p_l of the same, Pa.
     pub critical_linear_scale_pa: f64,
+    /// p_m of the stretch scale δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_m²), Pa.
+    pub cluster_smoothing_pa: f64,
 }
 
 impl Default for SinglePhaseConfig {
@@ -156,6 +158,7 @@ impl Default for SinglePhaseConfig {
             x_pressure_scale_pa: 2.0e6,
             critical_scale_pa: 0.5e6,
             critical_linear_scale_pa: 4.0e6,
+            cluster_smoothing_pa: 0.5e6,
         }
     }
 }
@@ -178,7 +181,8 @@ impl SinglePhaseConfig {
         format!(
             "pressure_min_pa={} pressure_max_pa={} temperature_min_k={} temperature_max_k={} \
              intervals={} inverse_intervals={} cluster_base_k={} cluster_k_per_mpa={} cluster_reference_mpa={} samples_per_interval={} \
-             x_pressure_scale_pa={} critical_scale_pa={} critical_linear_scale_pa={}",
+             x_pressure_scale_pa={} critical_scale_pa={} critical_linear_scale_pa={} \
+             cluster_smoothing_pa={}",
             self.pressure_min_pa,
             self.pressure_max_pa,
             self.temperature_min_k,
@@ -191,7 +195,8 @@ impl SinglePhaseConfig {
             self.samples_per_interval,
             self.x_pressure_scale_pa,
             self.critical_scale_pa,
-            self.critical_linear_scale_pa
+            self.critical_linear_scale_pa,
+            self.cluster_smoothing_pa
         )
     }
 
@@ -253,6 +258,7 @@ impl SinglePhaseConfig {
             "x_pressure_scale_pa" => self.x_pressure_scale_pa = float(value)?,
             "critical_scale_pa" => self.critical_scale_pa = float(value)?,
             "critical_linear_scale_pa" => self.critical_linear_scale_pa = float(value)?,
+            "cluster_smoothing_pa" => self.cluster_smoothing_pa = float(value)?,
             _ => return Err(format!("unknown setting {key}")),
         }
         Ok(())
@@ -476,6 +482,8 @@ pub struct SinglePhaseLimits {
     pub critical_inverse_scale_pa: f32,
     /// 1/p_l of the same, 1/Pa.
     pub critical_inverse_linear_scale_pa: f32,
+    /// 1/p_m of the stretch scale δ(p) (see [`cluster_delta`]), 1/Pa.
+    pub cluster_inverse_smoothing_pa: f32,
 }
 
 /// One generated sheet with its inverse sheets and stretch.
@@ -566,14 +574,14 @@ impl Edges {
     }
 }
 
-/// δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_s²), K: a smooth form of
-/// δ_base + δ_slope·|p − p_ref| (p_s the near-critical pressure scale), so the
+/// δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_m²), K: a smooth form of
+/// δ_base + δ_slope·|p − p_ref| (p_m the smoothing pressure), so the
 /// coordinate lines have no kink at p_ref.
 pub fn cluster_delta(l: &SinglePhaseLimits, g: &GeneratedSheet, p: f64) -> f64 {
-    let d = (p - f64::from(g.cluster_reference_pa)) * f64::from(l.critical_inverse_scale_pa);
+    let d = (p - f64::from(g.cluster_reference_pa)) * f64::from(l.cluster_inverse_smoothing_pa);
     f64::from(g.cluster_base_k)
         + f64::from(g.cluster_slope_k_pa) * (d * d + 1.0).sqrt()
-            / f64::from(l.critical_inverse_scale_pa)
+            / f64::from(l.cluster_inverse_smoothing_pa)
 }
 
 /// The liquid/vapour edge: T_sat(p) below pc, and from pc up the
@@ -820,6 +828,7 @@ pub fn generate_single_phase(c: &SinglePhaseConfig) -> Result<SinglePhaseGenerat
         x_inverse_pressure_scale: (1.0 / c.x_pressure_scale_pa) as f32,
         critical_inverse_scale_pa: (1.0 / c.critical_scale_pa) as f32,
         critical_inverse_linear_scale_pa: (1.0 / c.critical_linear_scale_pa) as f32,
+        cluster_inverse_smoothing_pa: (1.0 / c.cluster_smoothing_pa) as f32,
     };
     let mut sheets = Vec::new();
     for kind in SheetKind::ALL {
@@ -1101,6 +1110,12 @@ pub fn emit_single_phase(g: &SinglePhaseGenerated) -> String {
     );
     constant(
         &mut body,
+        "CLUSTER_INVERSE_SMOOTHING_PA",
+        "1/p_m of the stretch scale δ(p) = δ_base + δ_slope·√((p − p_ref)² + p_m²), 1/Pa.",
+        l.cluster_inverse_smoothing_pa,
+    );
+    constant(
+        &mut body,
         "CRITICAL_PRESSURE_PA",
         "Critical pressure, Pa (origin of the near-critical x coordinate).",
         l.critical_pressure_pa,
@@ -1219,6 +1234,7 @@ pub fn measure_single_phase(
             continue;
         }
         let mut worst = [(0.0f64, 0.0f64, 0.0f64); 7];
+        let mut worst_ring = [(0.0f64, 0.0f64, 0.0f64); 7];
         let (p_lo, p_hi) = pressure_range(kind, l);
         let (xa, xb) = (x_of_pressure(kind, l, p_lo), x_of_pressure(kind, l, p_hi));
         let nx = s.properties.x_intervals * points;
@@ -1260,6 +1276,9 @@ pub fn measure_single_phase(
                     if z == 0 && errs[q] > worst[q].0 {
                         worst[q] = (errs[q], p, t);
                     }
+                    if z == 1 && errs[q] > worst_ring[q].0 {
+                        worst_ring[q] = (errs[q], p, t);
+                    }
                 }
             }
         }
@@ -1268,6 +1287,11 @@ pub fn measure_single_phase(
                 "{:22} far-zone worst (value, p, T): {:?}",
                 kind.name(),
                 worst.map(|(v, p, t)| (format!("{v:.2e}"), p as f32, t as f32))
+            );
+            std::eprintln!(
+                "{:22} ring worst (value, p, T): {:?}",
+                kind.name(),
+                worst_ring.map(|(v, p, t)| (format!("{v:.2e}"), p as f32, t as f32))
             );
         }
     }
