@@ -1,7 +1,8 @@
 use vapora_tables::generator::single_phase as sp;
 fn main() {
     let mut c = sp::SinglePhaseConfig::default();
-    c.set("intervals", "26x22,22x30,14x28,46x18,46x28,18x24").unwrap();
+    c.set("intervals", "26x22,22x30,14x28,46x18,46x28,18x24")
+        .unwrap();
     let g = sp::generate_single_phase(&c).unwrap();
     let l = g.limits;
     let s = g.sheet(sp::SheetKind::LiquidHigh);
