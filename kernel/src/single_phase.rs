@@ -344,6 +344,22 @@ fn b23_temperature_k(p_pa: f32) -> f32 {
     N4 + libm::sqrtf(if ratio > 0.0 { ratio } else { 0.0 })
 }
 
+/// The sheet's x coordinate of a pressure (see the module docs).
+#[inline]
+fn x_of(sheet: Sheet, p_pa: f32) -> f32 {
+    let to_critical = p_pa - table::CRITICAL_PRESSURE_PA;
+    match sheet {
+        Sheet::VapourLow | Sheet::LiquidLow => {
+            libm::logf(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
+        }
+        Sheet::LiquidHigh | Sheet::VapourHigh => p_pa * 1.0e-6,
+        Sheet::LiquidNearCritical | Sheet::VapourNearCritical => {
+            libm::asinhf(to_critical * table::CRITICAL_INVERSE_SCALE_PA)
+                + to_critical * table::CRITICAL_INVERSE_LINEAR_SCALE_PA
+        }
+    }
+}
+
 /// Where the sheet's coordinates put a pressure: x, the edges and the stretch.
 #[derive(Clone, Copy)]
 struct Geometry {
@@ -358,17 +374,7 @@ struct Geometry {
 impl Geometry {
     fn new(sheet: Sheet, p_pa: f32, edge_k: f32) -> Self {
         let data = sheet.data();
-        let to_critical = p_pa - table::CRITICAL_PRESSURE_PA;
-        let x = match sheet {
-            Sheet::VapourLow | Sheet::LiquidLow => {
-                libm::logf(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
-            }
-            Sheet::LiquidHigh | Sheet::VapourHigh => p_pa * 1.0e-6,
-            Sheet::LiquidNearCritical | Sheet::VapourNearCritical => {
-                libm::asinhf(to_critical * table::CRITICAL_INVERSE_SCALE_PA)
-                    + to_critical * table::CRITICAL_INVERSE_LINEAR_SCALE_PA
-            }
-        };
+        let x = x_of(sheet, p_pa);
         let (t0, t1) = match sheet {
             Sheet::VapourLow => (edge_k, TEMPERATURE_MAX_K),
             Sheet::LiquidLow => (edge_k, TEMPERATURE_MIN_K),
@@ -709,28 +715,25 @@ impl Given {
 
 /// The given property on a sheet's edge y (0 or 1) at the sheet's x.
 #[inline]
-fn on_edge(sheet: Sheet, g: &Geometry, y: f32, column: usize) -> Result<f32, SinglePhaseError> {
+fn on_edge(sheet: Sheet, x: f32, y: f32, column: usize) -> Result<f32, SinglePhaseError> {
     sheet
         .data()
         .properties
-        .evaluate_one(g.x, y, column)
+        .evaluate_one(x, y, column)
         .ok_or(SinglePhaseError::EmptyTable)
 }
 
 /// The cold and hot ends of the envelope for the error of a (p, h) or
 /// (p, s) call out of range (the rare path).
 #[cold]
-fn envelope_error(p_pa: f32, edge_k: f32, given: Given) -> SinglePhaseError {
+fn envelope_error(p_pa: f32, given: Given) -> SinglePhaseError {
     let (cold, hot) = if p_pa < table::BOUNDARY_PRESSURE_PA {
         (Sheet::LiquidLow, Sheet::VapourLow)
     } else {
         (Sheet::LiquidHigh, Sheet::VapourHigh)
     };
     let column = given.column();
-    let at = |sheet: Sheet| {
-        let g = Geometry::new(sheet, p_pa, edge_k);
-        on_edge(sheet, &g, 1.0, column).unwrap_or(f32::NAN)
-    };
+    let at = |sheet: Sheet| on_edge(sheet, x_of(sheet, p_pa), 1.0, column).unwrap_or(f32::NAN);
     given.out_of_range(at(cold), at(hot))
 }
 
@@ -744,8 +747,8 @@ fn state_from_given(
 ) -> Result<SinglePhaseState, SinglePhaseError> {
     let g = Geometry::new(sheet, p_pa, edge_k);
     let column = given.column();
-    let at0 = on_edge(sheet, &g, 0.0, column)?;
-    let at1 = on_edge(sheet, &g, 1.0, column)?;
+    let at0 = on_edge(sheet, g.x, 0.0, column)?;
+    let at1 = on_edge(sheet, g.x, 1.0, column)?;
     let span = at1 - at0;
     let phi = if span != 0.0 {
         (given.value() - at0) / span
@@ -756,7 +759,7 @@ fn state_from_given(
     // (Slightly below 0 or beyond the far edge of an inner sheet is the
     // rounding between neighbouring sheets, and is clamped.)
     if sheet.far_edge_is_envelope() && phi > 1.0 + 1e-6 {
-        return Err(envelope_error(p_pa, edge_k, given));
+        return Err(envelope_error(p_pa, given));
     }
     let inverse = match given {
         Given::Enthalpy(_) => &sheet.data().y_of_enthalpy,
@@ -819,16 +822,16 @@ fn state_across_phases(
             false
         }
     } else {
-        let g = Geometry::new(Sheet::VapourNearCritical, p, edge);
-        value >= on_edge(Sheet::VapourNearCritical, &g, 0.0, column)?
+        let sheet = Sheet::VapourNearCritical;
+        value >= on_edge(sheet, x_of(sheet, p), 0.0, column)?
     };
     let low = p < table::BOUNDARY_PRESSURE_PA;
     if vapour {
         let sheet = if low {
             Sheet::VapourLow
         } else {
-            let g = Geometry::new(Sheet::VapourHigh, p, edge);
-            if value < on_edge(Sheet::VapourHigh, &g, 0.0, column)? {
+            let high = Sheet::VapourHigh;
+            if value < on_edge(high, x_of(high, p), 0.0, column)? {
                 Sheet::VapourNearCritical
             } else {
                 Sheet::VapourHigh
@@ -839,8 +842,8 @@ fn state_across_phases(
         let sheet = if low {
             Sheet::LiquidLow
         } else {
-            let g = Geometry::new(Sheet::LiquidHigh, p, edge);
-            if value <= on_edge(Sheet::LiquidHigh, &g, 0.0, column)? {
+            let high = Sheet::LiquidHigh;
+            if value <= on_edge(high, x_of(high, p), 0.0, column)? {
                 Sheet::LiquidHigh
             } else {
                 Sheet::LiquidNearCritical
