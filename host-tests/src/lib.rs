@@ -8,4 +8,6 @@ pub mod fuzz_vectors;
 pub mod regress;
 pub mod report;
 pub mod robustness;
+pub mod single_phase;
+pub mod single_phase_maps;
 pub mod tolerance;
