@@ -218,3 +218,22 @@ fn the_chamber_must_be_below_the_line_pressure() {
         ));
     }
 }
+
+#[test]
+fn the_documented_limit_of_the_method_at_atmospheric_pressure() {
+    // Module docs: with the chamber at the atmosphere the method needs line
+    // steam drier than about x = 0.95 at 10 bar(a); h''(101.325 kPa) =
+    // 2675.5 kJ/kg and h' + 0.95·h_fg at 10 bar(a) = 2676.4 kJ/kg.
+    let atmosphere = saturation::at_pressure(101_325.0).unwrap();
+    let line = saturation::at_pressure(1.0e6).unwrap();
+    let (h_l, h_v) = (line.liquid.enthalpy_j_kg, line.vapour.enthalpy_j_kg);
+    close(
+        "h'' of the atmosphere",
+        atmosphere.vapour.enthalpy_j_kg,
+        2_675.5e3,
+        50.0,
+    );
+    close("h' + 0.95 h_fg", h_l + 0.95 * (h_v - h_l), 2_676.4e3, 50.0);
+    let x_min = (atmosphere.vapour.enthalpy_j_kg - h_l) / (h_v - h_l);
+    close("limiting x", x_min, 0.95, 0.001);
+}

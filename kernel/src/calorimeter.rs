@@ -15,8 +15,10 @@
 //!
 //! The method applies only when the chamber is superheated,
 //! T_cal > T_sat(p_cal): wetter line steam stays wet after throttling and
-//! its temperature says nothing about x. Throttling to atmospheric
-//! pressure, that limits it to x above about 0.95 at 10 bar(a).
+//! its temperature says nothing about x. With the chamber at atmospheric
+//! pressure that limits the method to line steam drier than about x = 0.95
+//! at 10 bar(a) (h'' of the atmosphere is 2675.5 kJ/kg, h' + 0.95·h_fg at
+//! 10 bar(a) 2676.4 kJ/kg; IF97 figures, checked in the host tests).
 //!
 //! # Separating and throttling
 //! Wetter steam first passes a mechanical separator that collects a mass
