@@ -9,19 +9,19 @@
 //! # Geometry
 //! ```text
 //!                                       condensate pot
-//!                                          +----+
-//!   +----------------------+  upper tap    |    |
-//!   |  steam        rho''  |===============+    +----+ - - - - - - - - - - -
-//!   |                      |                    |    |                    ^
-//!   |~~~~~~~~~~~~~~~~~~~~~~|-- water level      |    |  reference leg,    |
-//!   |  water        rho'   |     ^ L            |    |  full of condensate|
-//!   |- - - - - - - - - - - |-- zero mark        |    |  at T_leg:  rho_ref|  H
-//!   |                      |     ^ Z            |    |                    |
-//!   |                      |=========+          |    |                    v
-//!   +----------------------+ lower   |          |    |  - - - - - - - - - -
-//!                            tap     |          |    |
-//!                                    +--[LP    HP]---+
-//!                                     DP transmitter
+//!                                         +------+
+//!   +----------------------+  upper tap   |      |
+//!   |  steam        rho''  |==============+      |  - - - - - - - - - - - - -
+//!   |                      |              +-+  +-+                          ^
+//!   |~~~~~~~~~~~~~~~~~~~~~~|-- water level  |  |    reference leg,         |
+//!   |  water        rho'   |     ^ L        |  |    full of condensate     |
+//!   |- - - - - - - - - - - |-- zero mark    |  |    at T_leg: rho_ref      |  H
+//!   |                      |     ^ Z        |  |                           |
+//!   |                      |=========+      |  |                           v
+//!   +----------------------+ lower   |      |  |  - - - - - - - - - - - - -
+//!                            tap     |      |  |
+//!                                    +-[LP  HP]
+//!                                    DP transmitter
 //! ```
 //! H is the vertical distance between the lower and the upper tap, Z the
 //! height of the level's zero mark (usually the normal water level) above
