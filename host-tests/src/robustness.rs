@@ -147,15 +147,6 @@ pub const CHECKED_FUNCTIONS: &[&str] = &[
     "TableData::of_uniform",
     "TableData::of_octave",
     "TableData::checksum",
-    // ---- TEMPORARY STAND-IN block (branch apps): the single-phase API of the
-    // stand-in kernel/src/single_phase.rs. Drop at merge; branch sp's block
-    // for the table-based module replaces it.
-    "superheated_vapour",
-    "compressed_liquid",
-    "state_at_pressure_temperature",
-    "state_at_pressure_enthalpy",
-    "state_at_pressure_entropy",
-    // ---- end of the stand-in block
     // ---- application routines block (issue 5, branch apps)
     "steam_flowing_conditions",
     "water_flowing_conditions",
@@ -193,13 +184,6 @@ pub fn input_shape(function: &str) -> InputShape {
         | "phase_from_temperature_entropy"
         | "wet_steam_at_pressure"
         | "wet_steam_at_temperature" => (true, true, 1),
-        // ---- TEMPORARY STAND-IN block (branch apps), drop at merge.
-        "superheated_vapour"
-        | "compressed_liquid"
-        | "state_at_pressure_temperature"
-        | "state_at_pressure_enthalpy"
-        | "state_at_pressure_entropy" => (true, true, 1),
-        // ---- end of the stand-in block
         // ---- application routines block (issue 5, branch apps): `a` and `b`
         // are the two inputs named in `check_application`, the selector picks
         // the remaining settings from a small list.
@@ -746,32 +730,6 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
                 ))
             }
         }
-        // ---- TEMPORARY STAND-IN block (branch apps), drop at merge.
-        "superheated_vapour" | "compressed_liquid" | "state_at_pressure_temperature" => {
-            let (Ok(p), Ok(t)) = (AbsolutePressure::from_pa(a), Temperature::from_kelvin(b)) else {
-                return Ok(());
-            };
-            match function {
-                "superheated_vapour" => result(superheated_vapour(p, t), |s| {
-                    stand_in_check_single_phase(&s)
-                }),
-                "compressed_liquid" => {
-                    result(compressed_liquid(p, t), |s| stand_in_check_single_phase(&s))
-                }
-                _ => result(state_at_pressure_temperature(p, t), stand_in_check_fluid),
-            }
-        }
-        "state_at_pressure_enthalpy" | "state_at_pressure_entropy" => {
-            let Ok(p) = AbsolutePressure::from_pa(a) else {
-                return Ok(());
-            };
-            if function == "state_at_pressure_enthalpy" {
-                result(state_at_pressure_enthalpy(p, b), stand_in_check_fluid)
-            } else {
-                result(state_at_pressure_entropy(p, b), stand_in_check_fluid)
-            }
-        }
-        // ---- end of the stand-in block
         "steam_flowing_conditions"
         | "water_flowing_conditions"
         | "energy_flow_from_enthalpies_w"
@@ -784,46 +742,6 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
     }
 }
 
-// ---- TEMPORARY STAND-IN block (branch apps): minimal checks of the stand-in
-// single-phase module (every field finite, ρ·v = 1, ρ and μ positive). Drop at
-// merge; branch sp brings the real physical-range checks.
-use vapora_kernel::single_phase::{
-    compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
-    state_at_pressure_temperature, superheated_vapour, FluidState, SinglePhaseState,
-};
-
-fn stand_in_check_single_phase(s: &SinglePhaseState) -> Result<(), Violation> {
-    for (what, v) in [
-        ("density", s.density_kg_m3),
-        ("specific volume", s.specific_volume_m3_kg),
-        ("enthalpy", s.enthalpy_j_kg),
-        ("entropy", s.entropy_j_kgk),
-        ("cp", s.cp_j_kgk),
-        ("speed of sound", s.speed_of_sound_m_s),
-        ("isentropic exponent", s.isentropic_exponent),
-        ("viscosity", s.viscosity_pa_s),
-    ] {
-        finite(what, v)?;
-    }
-    if let Some(m) = s.saturation_margin_k {
-        finite("saturation margin", m)?;
-    }
-    in_range("single-phase density", s.density_kg_m3, 1e-6, 1.1e3)?;
-    in_range("single-phase viscosity", s.viscosity_pa_s, 1e-7, 2e-3)
-}
-
-fn stand_in_check_fluid(f: FluidState) -> Result<(), Violation> {
-    match f {
-        FluidState::CompressedLiquid(s) | FluidState::SuperheatedVapour(s) => {
-            stand_in_check_single_phase(&s)
-        }
-        FluidState::WetSteam(w) => {
-            in_range("wet-steam dryness fraction", w.dryness_fraction, 0.0, 1.0)
-        }
-        _ => Err(format!("unexpected fluid state {f:?}")),
-    }
-}
-// ---- end of the stand-in block
 
 // ---- application routines block (issue 5, branch apps): the physical-range
 // checks of crate::flowing, energy, drum_level and calorimeter.

@@ -14,8 +14,6 @@ pub mod integrity;
 pub mod mixture;
 pub mod quality;
 pub mod saturation;
-// TEMPORARY STAND-IN: replaced by the table-based module from branch sp at merge.
-pub mod single_phase;
 pub mod spline;
 pub mod units;
 

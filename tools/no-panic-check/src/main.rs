@@ -228,34 +228,6 @@ fn integrity() {
     sink_bits(TableData::of_octave(&table::TEMPERATURE_HIGH).checksum());
 }
 
-// ---- TEMPORARY STAND-IN block (branch apps): the stand-in single-phase API.
-// Drop at merge; branch sp's block for the table-based module replaces it.
-fn stand_in_single_phase() {
-    use vapora_kernel::single_phase::{
-        compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
-        state_at_pressure_temperature, superheated_vapour, FluidState,
-    };
-    fn sink_fluid(f: FluidState) {
-        match f {
-            FluidState::CompressedLiquid(s) | FluidState::SuperheatedVapour(s) => {
-                sink(s.density_kg_m3)
-            }
-            FluidState::WetSteam(w) => sink(w.dryness_fraction),
-            _ => sink_bits(7),
-        }
-    }
-    if let (Ok(p), Ok(t)) = (
-        AbsolutePressure::from_pa(input()),
-        Temperature::from_kelvin(input()),
-    ) {
-        sink_result(superheated_vapour(p, t), |s| sink(s.density_kg_m3));
-        sink_result(compressed_liquid(p, t), |s| sink(s.density_kg_m3));
-        sink_result(state_at_pressure_temperature(p, t), sink_fluid);
-        sink_result(state_at_pressure_enthalpy(p, input()), sink_fluid);
-        sink_result(state_at_pressure_entropy(p, input()), sink_fluid);
-    }
-}
-// ---- end of the stand-in block
 
 // ---- application routines block (issue 5, branch apps).
 fn applications() {
@@ -381,7 +353,6 @@ pub extern "C" fn _start() -> ! {
         saturation();
         spline();
         integrity();
-        stand_in_single_phase(); // TEMPORARY STAND-IN (branch apps), drop at merge
         applications(); // application routines (branch apps)
         deliberate_panic();
     }
