@@ -23,6 +23,7 @@ use vapora_kernel::saturation::{
     SaturatedProperty, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K, TEMPERATURE_MIN_K,
 };
 use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
+use vapora_kernel::single_phase;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 use vapora_tables::if97::{region4, saturation as if97_saturation};
 
@@ -163,6 +164,24 @@ pub const KERNEL: &[Measured] = &[
         calls: SWEEP,
         input: celsius_input,
         call: call_temperature_from_celsius,
+    },
+    Measured {
+        name: "single_phase_state_at_pressure_temperature",
+        calls: SWEEP,
+        input: single_phase_pt_input,
+        call: call_state_at_pressure_temperature,
+    },
+    Measured {
+        name: "single_phase_state_at_pressure_enthalpy",
+        calls: SWEEP,
+        input: single_phase_ph_input,
+        call: call_state_at_pressure_enthalpy,
+    },
+    Measured {
+        name: "single_phase_state_at_pressure_entropy",
+        calls: SWEEP,
+        input: single_phase_ps_input,
+        call: call_state_at_pressure_entropy,
     },
 ];
 
@@ -408,6 +427,62 @@ fn bar_input(i: u32) -> [f32; 2] {
 
 fn celsius_input(i: u32) -> [f32; 2] {
     [sweep(i, -280.0, 380.0), 0.0]
+}
+
+/// Pressures over the single-phase envelope (611.657 Pa to 25 MPa, log
+/// spaced, then p_b, its neighbour and one below and one above the range)
+/// with temperatures over 273.16 to 1073.15 K in a scrambled order: liquid,
+/// vapour, near-critical and supercritical points.
+fn single_phase_pt_input(i: u32) -> [f32; 2] {
+    [
+        range_point(
+            i,
+            single_phase::PRESSURE_MIN_PA,
+            single_phase::PRESSURE_MAX_PA,
+            BOUNDARY_PRESSURE_PA,
+            true,
+        ),
+        scrambled(
+            i,
+            single_phase::TEMPERATURE_MIN_K,
+            single_phase::TEMPERATURE_MAX_K,
+        ),
+    ]
+}
+
+/// The same pressures with enthalpies from cold water to hot steam
+/// (single phase and wet steam), J/kg.
+fn single_phase_ph_input(i: u32) -> [f32; 2] {
+    [single_phase_pt_input(i)[0], scrambled(i, 1.0e4, 4.1e6)]
+}
+
+/// The same pressures with entropies from cold water to hot steam, J/(kg K).
+fn single_phase_ps_input(i: u32) -> [f32; 2] {
+    [single_phase_pt_input(i)[0], scrambled(i, 10.0, 1.15e4)]
+}
+
+#[inline(never)]
+fn call_state_at_pressure_temperature(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(single_phase::state_at_pressure_temperature(p, t)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_state_at_pressure_enthalpy(x: [f32; 2]) -> u32 {
+    match pressure(x[0]) {
+        Ok(p) => consume(single_phase::state_at_pressure_enthalpy(p, x[1])),
+        Err(e) => e,
+    }
+}
+
+#[inline(never)]
+fn call_state_at_pressure_entropy(x: [f32; 2]) -> u32 {
+    match pressure(x[0]) {
+        Ok(p) => consume(single_phase::state_at_pressure_entropy(p, x[1])),
+        Err(e) => e,
+    }
 }
 
 /// What an error result contributes to the checksum.

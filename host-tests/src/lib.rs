@@ -7,4 +7,5 @@ pub mod bit_vectors;
 pub mod regress;
 pub mod report;
 pub mod robustness;
+pub mod single_phase;
 pub mod tolerance;

@@ -50,7 +50,9 @@ use vapora_kernel::accuracy::{
     accuracy_at_saturation_temperature_k, SaturationAccuracy, ACCURACY_BELOW_NEAR_CRITICAL,
     ACCURACY_NEAR_CRITICAL,
 };
-use vapora_kernel::integrity::{self, TableData, TableSet};
+use vapora_kernel::integrity::{
+    self, check_single_phase_checksums, SheetData, SinglePhaseTables, TableData, TableSet,
+};
 use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
 use vapora_kernel::quality::{
     phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
@@ -62,8 +64,15 @@ use vapora_kernel::saturation::{
     SaturatedProperty, SaturatedState, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K,
     TEMPERATURE_MIN_K,
 };
-use vapora_kernel::spline::{cubic, OctaveCubicTable, UniformCubicTable};
+use vapora_kernel::single_phase::{
+    compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
+    state_at_pressure_temperature, superheated_vapour, FluidState, SinglePhaseState,
+};
+use vapora_kernel::spline::{
+    cubic, BicubicSheet, OctaveCubicTable, SinglePhaseSheet, UniformCubicTable,
+};
 use vapora_kernel::tables::saturation as table;
+use vapora_kernel::tables::single_phase as sp_table;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
 /// Highest density accepted on the line, kg/m³ (ρ' peaks at 999.97 kg/m³
@@ -93,6 +102,38 @@ pub const CP_MAX_J_KGK: f32 = 1.001e10;
 /// Highest latent heat accepted, J/kg (h_fg = 2500.9 kJ/kg at the triple
 /// point, from memory, rounded up).
 pub const LATENT_HEAT_MAX_J_KG: f32 = 2.51e6;
+
+/// Single-phase ranges (the envelope 611.657 Pa to 25 MPa, 273.16 K to
+/// 1073.15 K; extreme values computed with vapora-tables' IF97 at the
+/// corners of the envelope, rounded outward):
+/// lowest density, kg/m³ (vapour at 611.657 Pa, 1073.15 K: 1.23e-3).
+pub const SINGLE_PHASE_DENSITY_MIN_KG_M3: f32 = 1.2e-3;
+/// Highest single-phase specific volume, m³/kg (1/1.23e-3 = 813).
+pub const SINGLE_PHASE_SPECIFIC_VOLUME_MAX_M3_KG: f32 = 840.0;
+/// Highest single-phase enthalpy, J/kg (vapour at 611.657 Pa, 1073.15 K:
+/// 4160 kJ/kg).
+pub const SINGLE_PHASE_ENTHALPY_MAX_J_KG: f32 = 4.2e6;
+/// Highest single-phase entropy, J/(kg·K) (vapour at 611.657 Pa,
+/// 1073.15 K: 11.92 kJ/(kg·K)).
+pub const SINGLE_PHASE_ENTROPY_MAX_J_KGK: f32 = 1.2e4;
+/// Lowest single-phase entropy, J/(kg·K): compressed water at 273.16 K and
+/// 25 MPa has s slightly below 0 (−0.4 J/(kg·K)).
+pub const SINGLE_PHASE_ENTROPY_MIN_J_KGK: f32 = -5.0;
+/// Lowest single-phase enthalpy, J/kg (h(273.16 K) ≥ 0.6 J/kg; h grows with
+/// p there), less slack for the spline.
+pub const SINGLE_PHASE_ENTHALPY_MIN_J_KG: f32 = -100.0;
+/// Speed of sound range, m/s (vapour near the triple point about 420 m/s,
+/// near-critical minimum about 250 m/s, liquid at most about 1700 m/s).
+pub const SPEED_OF_SOUND_RANGE_M_S: (f32, f32) = (100.0, 2600.0);
+/// Isentropic exponent range: 1.23 at least (vapour at 1073.15 K), up to
+/// ρw²/p of water at the triple-point pressure (3.05e6).
+pub const ISENTROPIC_EXPONENT_RANGE: (f32, f32) = (0.5, 1.0e7);
+/// Viscosity range, Pa·s (vapour at 273.16 K about 9e-6, water at 273.16 K
+/// 1.79e-3, from the IAPWS R12-08 formula in vapora-tables).
+pub const VISCOSITY_RANGE_PA_S: (f32, f32) = (1.0e-6, 2.0e-3);
+/// Slack on the temperature of a (p, h) or (p, s) result beyond the
+/// envelope, K (the spline's end values are within its bound, not exact).
+pub const SINGLE_PHASE_TEMPERATURE_SLACK_K: f32 = 0.5;
 
 /// Every public function of the kernel that [`check`] exercises, by its path
 /// inside its module (methods as `Type::method`). The coverage test
@@ -147,6 +188,17 @@ pub const CHECKED_FUNCTIONS: &[&str] = &[
     "TableData::of_uniform",
     "TableData::of_octave",
     "TableData::checksum",
+    "SheetData::of_sheet",
+    "SheetData::checksum",
+    "SinglePhaseTables::compiled",
+    "check_single_phase_checksums",
+    "superheated_vapour",
+    "compressed_liquid",
+    "state_at_pressure_temperature",
+    "state_at_pressure_enthalpy",
+    "state_at_pressure_entropy",
+    "BicubicSheet::evaluate",
+    "BicubicSheet::evaluate_one",
     // ---- application routines block (issue 5, branch apps)
     "steam_flowing_conditions",
     "water_flowing_conditions",
@@ -183,7 +235,15 @@ pub fn input_shape(function: &str) -> InputShape {
         | "phase_from_temperature_enthalpy"
         | "phase_from_temperature_entropy"
         | "wet_steam_at_pressure"
-        | "wet_steam_at_temperature" => (true, true, 1),
+        | "wet_steam_at_temperature"
+        | "superheated_vapour"
+        | "compressed_liquid"
+        | "state_at_pressure_temperature"
+        | "state_at_pressure_enthalpy"
+        | "state_at_pressure_entropy" => (true, true, 1),
+        "BicubicSheet::evaluate" | "BicubicSheet::evaluate_one" => (true, true, 18),
+        "SheetData::of_sheet" | "SheetData::checksum" => (false, false, 18),
+        "SinglePhaseTables::compiled" | "check_single_phase_checksums" => (false, false, 1),
         // ---- application routines block (issue 5, branch apps): `a` and `b`
         // are the two inputs named in `check_application`, the selector picks
         // the remaining settings from a small list.
@@ -361,6 +421,136 @@ pub fn check_property(property: SaturatedProperty, v: f32) -> Result<(), Violati
             in_range(&what, v, CP_MIN_J_KGK, CP_MAX_J_KGK)
         }
         other => Err(format!("no range known for {other:?}")),
+    }
+}
+
+/// Every field of a single-phase state in its physical range; `vapour`
+/// says which side it must be on (margin > 0 for vapour, < 0 for liquid,
+/// where there is a saturation temperature).
+pub fn check_single_phase(s: &SinglePhaseState, vapour: bool) -> Result<(), Violation> {
+    in_range(
+        "pressure (Pa)",
+        s.pressure.as_pa(),
+        vapora_kernel::single_phase::PRESSURE_MIN_PA,
+        vapora_kernel::single_phase::PRESSURE_MAX_PA,
+    )?;
+    in_range(
+        "temperature (K)",
+        s.temperature.as_kelvin(),
+        vapora_kernel::single_phase::TEMPERATURE_MIN_K - SINGLE_PHASE_TEMPERATURE_SLACK_K,
+        vapora_kernel::single_phase::TEMPERATURE_MAX_K + SINGLE_PHASE_TEMPERATURE_SLACK_K,
+    )?;
+    in_range(
+        "density",
+        s.density_kg_m3,
+        SINGLE_PHASE_DENSITY_MIN_KG_M3,
+        DENSITY_MAX_KG_M3,
+    )?;
+    in_range(
+        "specific volume",
+        s.specific_volume_m3_kg,
+        1.0 / DENSITY_MAX_KG_M3,
+        SINGLE_PHASE_SPECIFIC_VOLUME_MAX_M3_KG,
+    )?;
+    in_range(
+        "enthalpy",
+        s.enthalpy_j_kg,
+        SINGLE_PHASE_ENTHALPY_MIN_J_KG,
+        SINGLE_PHASE_ENTHALPY_MAX_J_KG,
+    )?;
+    in_range(
+        "entropy",
+        s.entropy_j_kgk,
+        SINGLE_PHASE_ENTROPY_MIN_J_KGK,
+        SINGLE_PHASE_ENTROPY_MAX_J_KGK,
+    )?;
+    in_range("cp", s.cp_j_kgk, CP_MIN_J_KGK, CP_MAX_J_KGK)?;
+    in_range(
+        "speed of sound",
+        s.speed_of_sound_m_s,
+        SPEED_OF_SOUND_RANGE_M_S.0,
+        SPEED_OF_SOUND_RANGE_M_S.1,
+    )?;
+    in_range(
+        "isentropic exponent",
+        s.isentropic_exponent,
+        ISENTROPIC_EXPONENT_RANGE.0,
+        ISENTROPIC_EXPONENT_RANGE.1,
+    )?;
+    in_range(
+        "viscosity",
+        s.viscosity_pa_s,
+        VISCOSITY_RANGE_PA_S.0,
+        VISCOSITY_RANGE_PA_S.1,
+    )?;
+    match s.saturation_margin_k {
+        Some(m) if vapour && (m < 0.0 || m.is_nan()) => Err(format!("vapour with margin {m} K")),
+        Some(m) if !vapour && (m > 0.0 || m.is_nan()) => Err(format!("liquid with margin {m} K")),
+        Some(m) => in_range("saturation margin", m, -900.0, 900.0),
+        None if s.pressure.as_pa() < 22.0e6 => {
+            Err(format!("no margin at {} Pa", s.pressure.as_pa()))
+        }
+        None => Ok(()),
+    }
+}
+
+/// A (p, T), (p, h) or (p, s) result: the single-phase state in range, or
+/// wet steam checked against the saturated state at its pressure.
+pub fn check_fluid_state(state: FluidState) -> Result<(), Violation> {
+    match state {
+        FluidState::CompressedLiquid(s) => check_single_phase(&s, false),
+        FluidState::SuperheatedVapour(s) => check_single_phase(&s, true),
+        FluidState::WetSteam(w) => {
+            let s = saturated_state_at_pressure(w.pressure)
+                .map_err(|e| format!("wet steam where the saturated state is {e}"))?;
+            check_wet_steam(&w, &s)
+        }
+        other => Err(format!("unknown fluid state {other:?}")),
+    }
+}
+
+/// The single-phase sheet and part a selector names (0 … 17).
+fn sheet_part(selector: u32) -> (&'static str, &'static SinglePhaseSheet, u32) {
+    let sheets: [(&str, &SinglePhaseSheet); 6] = [
+        ("VAPOUR_LOW", &sp_table::VAPOUR_LOW),
+        ("LIQUID_LOW", &sp_table::LIQUID_LOW),
+        ("LIQUID_HIGH", &sp_table::LIQUID_HIGH),
+        ("LIQUID_NEAR_CRITICAL", &sp_table::LIQUID_NEAR_CRITICAL),
+        ("VAPOUR_NEAR_CRITICAL", &sp_table::VAPOUR_NEAR_CRITICAL),
+        ("VAPOUR_HIGH", &sp_table::VAPOUR_HIGH),
+    ];
+    let (name, sheet) = sheets[(selector / 3 % 6) as usize];
+    (name, sheet, selector % 3)
+}
+
+fn check_sheet_evaluate<const Q: usize>(
+    name: &str,
+    sheet: &BicubicSheet<Q>,
+    x: f32,
+    y: f32,
+    one: bool,
+) -> Result<(), Violation> {
+    // Any input is clamped to the sheet: the values must be finite.
+    if one {
+        for q in 0..Q {
+            match sheet.evaluate_one(x, y, q) {
+                Some(v) => finite(&format!("{name}.evaluate_one({x:e}, {y:e}, {q})"), v)?,
+                None => return Err(format!("{name}.evaluate_one({x:e}, {y:e}, {q}) gave None")),
+            }
+        }
+        if sheet.evaluate_one(x, y, Q).is_some() {
+            return Err(format!(
+                "{name}.evaluate_one(.., {Q}) past the last quantity"
+            ));
+        }
+        Ok(())
+    } else {
+        match sheet.evaluate(x, y) {
+            Some(v) => v
+                .iter()
+                .try_for_each(|&q| finite(&format!("{name}.evaluate({x:e}, {y:e})"), q)),
+            None => Err(format!("{name}.evaluate({x:e}, {y:e}) gave None")),
+        }
     }
 }
 
@@ -730,6 +920,63 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
                 ))
             }
         }
+        "superheated_vapour" | "compressed_liquid" | "state_at_pressure_temperature" => {
+            let (Ok(p), Ok(t)) = (AbsolutePressure::from_pa(a), Temperature::from_kelvin(b)) else {
+                return Ok(());
+            };
+            match function {
+                "superheated_vapour" => {
+                    result(superheated_vapour(p, t), |s| check_single_phase(&s, true))
+                }
+                "compressed_liquid" => {
+                    result(compressed_liquid(p, t), |s| check_single_phase(&s, false))
+                }
+                _ => result(state_at_pressure_temperature(p, t), check_fluid_state),
+            }
+        }
+        "state_at_pressure_enthalpy" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(state_at_pressure_enthalpy(p, b), check_fluid_state),
+            Err(_) => Ok(()),
+        },
+        "state_at_pressure_entropy" => match AbsolutePressure::from_pa(a) {
+            Ok(p) => result(state_at_pressure_entropy(p, b), check_fluid_state),
+            Err(_) => Ok(()),
+        },
+        "BicubicSheet::evaluate" | "BicubicSheet::evaluate_one" => {
+            let one = function.ends_with("one");
+            let (name, sheet, part) = sheet_part(selector);
+            match part {
+                0 => check_sheet_evaluate(name, &sheet.properties, a, b, one),
+                1 => check_sheet_evaluate(name, &sheet.y_of_enthalpy, a, b, one),
+                _ => check_sheet_evaluate(name, &sheet.y_of_entropy, a, b, one),
+            }
+        }
+        "SheetData::of_sheet" | "SheetData::checksum" => {
+            let (name, sheet, part) = sheet_part(selector);
+            let crcs = SinglePhaseTables::compiled();
+            let expected = crcs
+                .sheets
+                .iter()
+                .find(|s| s.table.to_string() == name)
+                .map(|s| s.expected[part as usize])
+                .ok_or_else(|| format!("no CRC for {name}"))?;
+            let computed = match part {
+                0 => SheetData::of_sheet(&sheet.properties).checksum(),
+                1 => SheetData::of_sheet(&sheet.y_of_enthalpy).checksum(),
+                _ => SheetData::of_sheet(&sheet.y_of_entropy).checksum(),
+            };
+            if computed == expected {
+                Ok(())
+            } else {
+                Err(format!(
+                    "sheet {name} part {part} CRC {computed:#x}, generated {expected:#x}"
+                ))
+            }
+        }
+        "SinglePhaseTables::compiled" | "check_single_phase_checksums" => {
+            check_single_phase_checksums(&SinglePhaseTables::compiled())
+                .map_err(|e| format!("single-phase checksums failed: {e}"))
+        }
         "steam_flowing_conditions"
         | "water_flowing_conditions"
         | "energy_flow_from_enthalpies_w"
@@ -741,7 +988,6 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
         other => Err(format!("unknown kernel function {other}")),
     }
 }
-
 
 // ---- application routines block (issue 5, branch apps): the physical-range
 // checks of crate::flowing, energy, drum_level and calorimeter.

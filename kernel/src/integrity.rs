@@ -46,8 +46,10 @@ use crc::{Crc, NoTable, CRC_32_ISO_HDLC};
 
 use crate::accuracy::ACCURACY_BELOW_NEAR_CRITICAL;
 use crate::saturation::{saturation_pressure, saturation_temperature};
-use crate::spline::{OctaveCubicTable, UniformCubicTable};
+use crate::single_phase::{compressed_liquid, superheated_vapour};
+use crate::spline::{BicubicSheet, OctaveCubicTable, SinglePhaseSheet, UniformCubicTable};
 use crate::tables::saturation as table;
+use crate::tables::single_phase;
 use crate::units::{AbsolutePressure, Temperature};
 
 /// The generator's CRC: CRC-32/ISO-HDLC, bitwise (no look-up table in flash).
@@ -66,15 +68,33 @@ pub enum TableId {
     TemperatureLow,
     /// [`table::TEMPERATURE_HIGH`]: saturation temperature from p_sat(623.15 K).
     TemperatureHigh,
+    /// [`single_phase::VAPOUR_LOW`]: superheated vapour below p_b (all three sheets).
+    VapourLow,
+    /// [`single_phase::LIQUID_LOW`]: compressed liquid below p_b.
+    LiquidLow,
+    /// [`single_phase::LIQUID_HIGH`]: compressed liquid from p_b, up to 623.15 K.
+    LiquidHigh,
+    /// [`single_phase::LIQUID_NEAR_CRITICAL`]: liquid side of Region 3.
+    LiquidNearCritical,
+    /// [`single_phase::VAPOUR_NEAR_CRITICAL`]: vapour side of Region 3.
+    VapourNearCritical,
+    /// [`single_phase::VAPOUR_HIGH`]: Region 2 beyond the B23 line.
+    VapourHigh,
 }
 
 impl TableId {
     /// Every table, in the order the self-test checks them.
-    pub const ALL: [TableId; 4] = [
+    pub const ALL: [TableId; 10] = [
         TableId::StateLow,
         TableId::StateHigh,
         TableId::TemperatureLow,
         TableId::TemperatureHigh,
+        TableId::VapourLow,
+        TableId::LiquidLow,
+        TableId::LiquidHigh,
+        TableId::LiquidNearCritical,
+        TableId::VapourNearCritical,
+        TableId::VapourHigh,
     ];
 }
 
@@ -85,6 +105,12 @@ impl fmt::Display for TableId {
             Self::StateHigh => "STATE_HIGH",
             Self::TemperatureLow => "TEMPERATURE_LOW",
             Self::TemperatureHigh => "TEMPERATURE_HIGH",
+            Self::VapourLow => "VAPOUR_LOW",
+            Self::LiquidLow => "LIQUID_LOW",
+            Self::LiquidHigh => "LIQUID_HIGH",
+            Self::LiquidNearCritical => "LIQUID_NEAR_CRITICAL",
+            Self::VapourNearCritical => "VAPOUR_NEAR_CRITICAL",
+            Self::VapourHigh => "VAPOUR_HIGH",
         })
     }
 }
@@ -266,6 +292,145 @@ pub fn check_checksums(tables: &TableSet<'_>) -> Result<(), IntegrityError> {
     data.check(TableId::TemperatureHigh, *crc)
 }
 
+/// The data of one single-phase B-spline sheet as the CRC covers it: the
+/// four header words (`x_start` and `x_inverse_step` as f32 bit patterns,
+/// the two interval counts), then every coefficient in storage order.
+#[derive(Debug, Clone, Copy)]
+pub struct SheetData<'a, const Q: usize> {
+    /// The four header words.
+    pub header: [u32; 4],
+    /// The coefficients.
+    pub coefficients: &'a [[f32; Q]],
+}
+
+impl<const Q: usize> SheetData<'static, Q> {
+    /// The data of a compiled sheet.
+    pub const fn of_sheet(sheet: &BicubicSheet<Q>) -> Self {
+        Self {
+            header: [
+                sheet.x_start.to_bits(),
+                sheet.x_inverse_step.to_bits(),
+                sheet.x_intervals,
+                sheet.y_intervals,
+            ],
+            coefficients: sheet.coefficients,
+        }
+    }
+}
+
+impl<const Q: usize> SheetData<'_, Q> {
+    /// CRC-32/ISO-HDLC of the header words and the coefficients, each as 4
+    /// little-endian bytes (what the generator computed for `*_CRC32` in
+    /// [`crate::tables::single_phase`]).
+    pub fn checksum(&self) -> u32 {
+        let mut digest = CRC32.digest();
+        for word in self.header {
+            digest.update(&word.to_le_bytes());
+        }
+        for c in self.coefficients {
+            for v in c {
+                digest.update(&v.to_bits().to_le_bytes());
+            }
+        }
+        digest.finalize()
+    }
+}
+
+/// One single-phase sheet's three arrays with the CRCs the generator gave them.
+#[derive(Debug, Clone, Copy)]
+pub struct SinglePhaseSheetData<'a> {
+    /// Which sheet.
+    pub table: TableId,
+    /// The properties over (x, y).
+    pub properties: SheetData<'a, 6>,
+    /// y over (x, ψ_h).
+    pub y_of_enthalpy: SheetData<'a, 1>,
+    /// y over (x, ψ_s).
+    pub y_of_entropy: SheetData<'a, 1>,
+    /// The generator's CRCs of the three, in that order.
+    pub expected: [u32; 3],
+}
+
+impl SinglePhaseSheetData<'static> {
+    const fn of(table: TableId, sheet: &'static SinglePhaseSheet, expected: [u32; 3]) -> Self {
+        Self {
+            table,
+            properties: SheetData::of_sheet(&sheet.properties),
+            y_of_enthalpy: SheetData::of_sheet(&sheet.y_of_enthalpy),
+            y_of_entropy: SheetData::of_sheet(&sheet.y_of_entropy),
+            expected,
+        }
+    }
+}
+
+/// Every single-phase sheet with its CRCs: [`SinglePhaseTables::compiled`]
+/// for the tables linked into the firmware, or a copy (the host tests damage
+/// copies to show that [`check_single_phase_checksums`] notices).
+#[derive(Debug, Clone, Copy)]
+pub struct SinglePhaseTables<'a> {
+    /// The six sheets, in the order of [`TableId::ALL`].
+    pub sheets: [SinglePhaseSheetData<'a>; 6],
+}
+
+impl SinglePhaseTables<'static> {
+    /// The compiled single-phase tables and their generated CRCs.
+    pub const fn compiled() -> Self {
+        use single_phase as t;
+        Self {
+            sheets: [
+                SinglePhaseSheetData::of(TableId::VapourLow, &t::VAPOUR_LOW, t::VAPOUR_LOW_CRC32),
+                SinglePhaseSheetData::of(TableId::LiquidLow, &t::LIQUID_LOW, t::LIQUID_LOW_CRC32),
+                SinglePhaseSheetData::of(
+                    TableId::LiquidHigh,
+                    &t::LIQUID_HIGH,
+                    t::LIQUID_HIGH_CRC32,
+                ),
+                SinglePhaseSheetData::of(
+                    TableId::LiquidNearCritical,
+                    &t::LIQUID_NEAR_CRITICAL,
+                    t::LIQUID_NEAR_CRITICAL_CRC32,
+                ),
+                SinglePhaseSheetData::of(
+                    TableId::VapourNearCritical,
+                    &t::VAPOUR_NEAR_CRITICAL,
+                    t::VAPOUR_NEAR_CRITICAL_CRC32,
+                ),
+                SinglePhaseSheetData::of(
+                    TableId::VapourHigh,
+                    &t::VAPOUR_HIGH,
+                    t::VAPOUR_HIGH_CRC32,
+                ),
+            ],
+        }
+    }
+}
+
+/// Checks the CRC of every array of every single-phase sheet in `tables`.
+/// [`self_test`] calls this with [`SinglePhaseTables::compiled`].
+///
+/// # Errors
+/// [`IntegrityError::ChecksumMismatch`] naming the first sheet with a
+/// differing CRC (`expected`/`computed` those of its first damaged array).
+pub fn check_single_phase_checksums(tables: &SinglePhaseTables<'_>) -> Result<(), IntegrityError> {
+    for sheet in &tables.sheets {
+        let computed = [
+            sheet.properties.checksum(),
+            sheet.y_of_enthalpy.checksum(),
+            sheet.y_of_entropy.checksum(),
+        ];
+        for (c, e) in computed.iter().zip(sheet.expected.iter()) {
+            if c != e {
+                return Err(IntegrityError::ChecksumMismatch {
+                    table: sheet.table,
+                    expected: *e,
+                    computed: *c,
+                });
+            }
+        }
+    }
+    Ok(())
+}
+
 /// A published saturation temperature at a pressure.
 struct TemperaturePoint {
     table: TableId,
@@ -359,6 +524,45 @@ pub fn check_spot_points() -> Result<(), IntegrityError> {
             });
         }
     }
+    // One published single-phase point per side of the saturation line:
+    // IAPWS R7-97(2012) Table 5 (Region 1, 3 MPa, 300 K: v = 0.100215168e-2
+    // m³/kg) and Table 15 (Region 2, 3.5 kPa, 700 K: v = 0.923015898e2
+    // m³/kg), density within 1e-4 relative (looser than the tables' bound:
+    // a damaged table is far off, rounding is not).
+    let liquid = AbsolutePressure::from_pa(3.0e6)
+        .ok()
+        .zip(Temperature::from_kelvin(300.0).ok())
+        .and_then(|(p, t)| compressed_liquid(p, t).ok())
+        .map_or(f32::NAN, |s| s.specific_volume_m3_kg);
+    let vapour = AbsolutePressure::from_pa(3.5e3)
+        .ok()
+        .zip(Temperature::from_kelvin(700.0).ok())
+        .and_then(|(p, t)| superheated_vapour(p, t).ok())
+        .map_or(f32::NAN, |s| s.specific_volume_m3_kg);
+    for (table, input, expected, computed) in [
+        (
+            TableId::LiquidLow,
+            3.0e6,
+            0.100_215_168e-2_f64 as f32,
+            liquid,
+        ),
+        (
+            TableId::VapourLow,
+            3.5e3,
+            0.923_015_898e2_f64 as f32,
+            vapour,
+        ),
+    ] {
+        let within = (computed - expected).abs() <= 1e-4 * expected;
+        if !within {
+            return Err(IntegrityError::SpotCheckFailed {
+                table,
+                input,
+                expected,
+                computed,
+            });
+        }
+    }
     Ok(())
 }
 
@@ -375,5 +579,6 @@ pub fn check_spot_points() -> Result<(), IntegrityError> {
 /// [`IntegrityError::SpotCheckFailed`], naming the table that failed.
 pub fn self_test() -> Result<(), IntegrityError> {
     check_checksums(&TableSet::compiled())?;
+    check_single_phase_checksums(&SinglePhaseTables::compiled())?;
     check_spot_points()
 }

@@ -14,6 +14,7 @@ pub mod integrity;
 pub mod mixture;
 pub mod quality;
 pub mod saturation;
+pub mod single_phase;
 pub mod spline;
 pub mod units;
 
@@ -21,4 +22,6 @@ pub mod units;
 pub mod tables {
     #[rustfmt::skip]
     pub mod saturation;
+    #[rustfmt::skip]
+    pub mod single_phase;
 }

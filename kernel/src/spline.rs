@@ -107,3 +107,131 @@ impl<const P: usize> OctaveCubicTable<P> {
         self.intervals.get(i).map(|block| (block, t))
     }
 }
+
+/// A tensor-product cubic B-spline of `Q` quantities over a rectangle of
+/// table coordinates: x from `x_start` in `x_intervals` equal intervals of
+/// width 1/`x_inverse_step`, y from 0 to 1 in `y_intervals` equal intervals.
+///
+/// The coefficients are stored row by row: row r (r = 0 … x_intervals + 2)
+/// holds `y_intervals + 3` entries. At local position (i + tx, j + ty) the
+/// value is Σₐ Σ_b Bₐ(tx)·B_b(ty)·c[(i + a)·(y_intervals + 3) + j + b] with
+/// B the four uniform cubic B-spline weights. Every look-up costs the same:
+/// two truncations, eight weights and 16 multiply-adds per quantity. Inputs
+/// outside the rectangle are clamped to it.
+#[derive(Debug)]
+#[cfg_attr(feature = "defmt", derive(defmt::Format))]
+pub struct BicubicSheet<const Q: usize> {
+    /// x at the first knot, in the sheet's x variable.
+    pub x_start: f32,
+    /// Intervals per unit of x.
+    pub x_inverse_step: f32,
+    /// Intervals in x (at least 1).
+    pub x_intervals: u32,
+    /// Intervals in y over [0, 1] (at least 1).
+    pub y_intervals: u32,
+    /// (x_intervals + 3)·(y_intervals + 3) coefficients, row by row.
+    pub coefficients: &'static [[f32; Q]],
+}
+
+/// The four uniform cubic B-spline weights at t ∈ [0, 1].
+#[inline]
+fn weights(t: f32) -> [f32; 4] {
+    let s = 1.0 - t;
+    let t2 = t * t;
+    let t3 = t2 * t;
+    const SIXTH: f32 = 1.0 / 6.0;
+    [
+        s * s * s * SIXTH,
+        (3.0 * t3 - 6.0 * t2 + 4.0) * SIXTH,
+        (-3.0 * t3 + 3.0 * t2 + 3.0 * t + 1.0) * SIXTH,
+        t3 * SIXTH,
+    ]
+}
+
+/// Interval index and position for a local coordinate u, clamped to
+/// [0, n] (NaN goes to 0).
+#[inline]
+fn interval(u: f32, n: u32) -> (usize, f32) {
+    let last = n.saturating_sub(1);
+    let u = at_least(u, 0.0);
+    let u = if u < n as f32 { u } else { n as f32 };
+    // `as u32` saturates; the min keeps the index inside the table.
+    let i = (u as u32).min(last);
+    (i as usize, u - i as f32)
+}
+
+impl<const Q: usize> BicubicSheet<Q> {
+    /// Every quantity at (x, y). `None` only for a malformed sheet (too few
+    /// coefficients), which the generator never writes.
+    #[inline]
+    pub fn evaluate(&self, x: f32, y: f32) -> Option<[f32; Q]> {
+        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
+        let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
+        let stride = (self.y_intervals as usize).checked_add(3)?;
+        let wx = weights(tx);
+        let wy = weights(ty);
+        let mut out = [0.0f32; Q];
+        for (a, wa) in wx.iter().enumerate() {
+            let start = i.checked_add(a)?.checked_mul(stride)?.checked_add(j)?;
+            let row = self.coefficients.get(start..start.checked_add(4)?)?;
+            let mut r = [0.0f32; Q];
+            for (c, wb) in row.iter().zip(wy.iter()) {
+                for (rq, cq) in r.iter_mut().zip(c.iter()) {
+                    *rq += wb * cq;
+                }
+            }
+            for (o, rq) in out.iter_mut().zip(r.iter()) {
+                *o += wa * rq;
+            }
+        }
+        Some(out)
+    }
+
+    /// One quantity at (x, y) (the same arithmetic as [`Self::evaluate`]
+    /// for that quantity). `None` for a malformed sheet or `q ≥ Q`.
+    #[inline]
+    pub fn evaluate_one(&self, x: f32, y: f32, q: usize) -> Option<f32> {
+        if q >= Q {
+            return None;
+        }
+        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
+        let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
+        let stride = (self.y_intervals as usize).checked_add(3)?;
+        let wx = weights(tx);
+        let wy = weights(ty);
+        let mut out = 0.0f32;
+        for (a, wa) in wx.iter().enumerate() {
+            let start = i.checked_add(a)?.checked_mul(stride)?.checked_add(j)?;
+            let row = self.coefficients.get(start..start.checked_add(4)?)?;
+            let mut r = 0.0f32;
+            for (c, wb) in row.iter().zip(wy.iter()) {
+                r += wb * c.get(q)?;
+            }
+            out += wa * r;
+        }
+        Some(out)
+    }
+}
+
+/// One single-phase sheet of the generated tables: the properties over
+/// (x, y) and the inverse sheets giving y from (x, ψ) for an enthalpy or
+/// entropy fraction, with the constants of the sheet's temperature stretch
+/// (see [`crate::single_phase`] for the coordinates).
+#[derive(Debug)]
+#[cfg_attr(feature = "defmt", derive(defmt::Format))]
+pub struct SinglePhaseSheet {
+    /// ρ (or ρ/p), h, s, 1/cp, w, ln μ over (x, y).
+    pub properties: BicubicSheet<6>,
+    /// y over (x, ψ_h).
+    pub y_of_enthalpy: BicubicSheet<1>,
+    /// y over (x, ψ_s).
+    pub y_of_entropy: BicubicSheet<1>,
+    /// δ_base of the stretch, K.
+    pub cluster_base_k: f32,
+    /// δ_slope of the stretch, K/Pa.
+    pub cluster_slope_k_pa: f32,
+    /// p_ref of the stretch, Pa.
+    pub cluster_reference_pa: f32,
+    /// Whether the density column holds ρ/p (kg/(m³·Pa)) instead of ρ.
+    pub density_over_pressure: bool,
+}

@@ -23,7 +23,73 @@ use std::process::ExitCode;
 
 use vapora_tables::generator::{emit, fit_to_target, generate, iapws97::Iapws97, measure, Config};
 
+fn run_single_phase(mut args: impl Iterator<Item = String>) -> Result<(), String> {
+    use vapora_tables::generator::single_phase as sp;
+    let mut config = sp::SinglePhaseConfig::default();
+    let mut output: Option<String> = None;
+    let mut measure_points = 0usize;
+    while let Some(flag) = args.next() {
+        let value = args.next().ok_or_else(|| format!("{flag} needs a value"))?;
+        if flag == "--output" {
+            output = Some(value);
+        } else if flag == "--measure" {
+            measure_points = value
+                .parse()
+                .map_err(|_| format!("bad --measure {value}"))?;
+        } else if let Some(key) = flag.strip_prefix("--") {
+            config.set(&key.replace('-', "_"), &value)?;
+        } else {
+            return Err(format!("unexpected argument {flag}"));
+        }
+    }
+    let g = sp::generate_single_phase(&config)?;
+    eprintln!("settings: {}", g.config.describe());
+    eprintln!(
+        "envelope: {} Pa to {} Pa, {} K to {} K",
+        g.limits.pressure_min_pa,
+        g.limits.pressure_max_pa,
+        g.limits.temperature_min_k,
+        g.limits.temperature_max_k
+    );
+    eprintln!(
+        "coefficient flash: {} bytes ({:.1} KiB)",
+        g.size_bytes(),
+        g.size_bytes() as f64 / 1024.0
+    );
+    for s in &g.sheets {
+        eprintln!("  {:22} {:6} bytes", s.kind.name(), s.size_bytes());
+    }
+    if measure_points > 0 {
+        let m = sp::measure_single_phase(&g, measure_points)?;
+        for (zone, z) in [
+            "far from critical",
+            "ring (15 K / 3 MPa)",
+            "box (5 K / 1 MPa)",
+        ]
+        .iter()
+        .zip(m)
+        {
+            eprintln!(
+                "measured, {zone}: rho {:.2e} h {:.2e} J/kg s {:.2e} cp {:.2e} w {:.2e} mu {:.2e} T(p,h) {:.2e} K",
+                z[0], z[1], z[2], z[3], z[4], z[5], z[6]
+            );
+        }
+    }
+    let text = sp::emit_single_phase(&g);
+    match output {
+        Some(path) => std::fs::write(&path, text).map_err(|e| format!("writing {path}: {e}")),
+        None => {
+            print!("{text}");
+            Ok(())
+        }
+    }
+}
+
 fn run() -> Result<(), String> {
+    let mut peek = std::env::args().skip(1).peekable();
+    if peek.peek().map(String::as_str) == Some("single-phase") {
+        return run_single_phase(peek.skip(1));
+    }
     let mut config = Config::default();
     let mut output: Option<String> = None;
     let mut target: Option<f64> = None;

@@ -42,6 +42,7 @@ pub mod emit;
 pub mod fit;
 pub mod iapws97;
 pub mod measure;
+pub mod single_phase;
 pub mod source;
 
 pub use source::{PhaseSample, SaturatedSample, SaturationSource};

@@ -16,8 +16,14 @@ use core::ptr::{addr_of, addr_of_mut, read_volatile, write_volatile};
 
 use vapora_kernel::accuracy::{accuracy_at_saturation_temperature_k, SaturationAccuracy};
 use vapora_kernel::integrity::{
-    check_checksums, check_spot_points, self_test, TableData, TableSet,
+    check_checksums, check_single_phase_checksums, check_spot_points, self_test, SheetData,
+    SinglePhaseTables, TableData, TableSet,
 };
+use vapora_kernel::single_phase::{
+    compressed_liquid, state_at_pressure_enthalpy, state_at_pressure_entropy,
+    state_at_pressure_temperature, superheated_vapour, FluidState, SinglePhaseState,
+};
+use vapora_kernel::tables::single_phase as sp_table;
 use vapora_kernel::mixture::{wet_steam_at_pressure, wet_steam_at_temperature, WetSteam};
 use vapora_kernel::quality::{
     phase_from_pressure_enthalpy, phase_from_pressure_entropy, phase_from_pressure_specific_volume,
@@ -28,7 +34,7 @@ use vapora_kernel::saturation::{
     saturated_state_at_temperature, saturation_pressure, saturation_temperature, PhaseProperties,
     SaturatedProperty, SaturatedState,
 };
-use vapora_kernel::spline::{cubic, OctaveCubicTable, UniformCubicTable};
+use vapora_kernel::spline::{cubic, BicubicSheet, OctaveCubicTable, UniformCubicTable};
 use vapora_kernel::tables::saturation as table;
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 
@@ -206,7 +212,62 @@ fn saturation() {
     sink_accuracy(accuracy_at_saturation_temperature_k(input()));
 }
 
+fn sink_single_phase(s: SinglePhaseState) {
+    sink(s.pressure.as_pa());
+    sink(s.temperature.as_kelvin());
+    sink(s.density_kg_m3);
+    sink(s.specific_volume_m3_kg);
+    sink(s.enthalpy_j_kg);
+    sink(s.entropy_j_kgk);
+    sink(s.cp_j_kgk);
+    sink(s.speed_of_sound_m_s);
+    sink(s.isentropic_exponent);
+    sink(s.viscosity_pa_s);
+    match s.saturation_margin_k {
+        Some(m) => sink(m),
+        None => sink_bits(u32::MAX),
+    }
+}
+
+fn sink_fluid_state(s: FluidState) {
+    match s {
+        FluidState::CompressedLiquid(s) | FluidState::SuperheatedVapour(s) => {
+            sink_single_phase(s)
+        }
+        FluidState::WetSteam(w) => sink_wet_steam(w),
+        _ => sink_bits(0),
+    }
+}
+
+fn single_phase() {
+    if let (Ok(p), Ok(t)) = (
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+    ) {
+        sink_result(superheated_vapour(p, t), sink_single_phase);
+        sink_result(compressed_liquid(p, t), sink_single_phase);
+        sink_result(state_at_pressure_temperature(p, t), sink_fluid_state);
+    }
+    if let Ok(p) = AbsolutePressure::from_pa(input()) {
+        sink_result(state_at_pressure_enthalpy(p, input()), sink_fluid_state);
+        sink_result(state_at_pressure_entropy(p, input()), sink_fluid_state);
+    }
+}
+
+fn evaluate_sheet<const Q: usize>(sheet: &BicubicSheet<Q>) {
+    match sheet.evaluate(input(), input()) {
+        Some(v) => v.iter().for_each(|&q| sink(q)),
+        None => sink_bits(0),
+    }
+    match sheet.evaluate_one(input(), input(), input_bits() as usize) {
+        Some(v) => sink(v),
+        None => sink_bits(0),
+    }
+}
+
 fn spline() {
+    evaluate_sheet(&sp_table::VAPOUR_LOW.properties);
+    evaluate_sheet(&sp_table::VAPOUR_NEAR_CRITICAL.y_of_enthalpy);
     locate_and_evaluate(&table::STATE_LOW);
     locate_and_evaluate(&table::STATE_HIGH);
     locate_octave_and_evaluate(&table::TEMPERATURE_LOW);
@@ -226,6 +287,12 @@ fn integrity() {
     sink_result(check_checksums(&tables), |()| sink_bits(3));
     sink_bits(TableData::of_uniform(&table::STATE_LOW).checksum());
     sink_bits(TableData::of_octave(&table::TEMPERATURE_HIGH).checksum());
+    let mut sheets = SinglePhaseTables::compiled();
+    for sheet in sheets.sheets.iter_mut() {
+        sheet.expected[0] = input_bits();
+    }
+    sink_result(check_single_phase_checksums(&sheets), |()| sink_bits(4));
+    sink_bits(SheetData::of_sheet(&sp_table::LIQUID_HIGH.y_of_entropy).checksum());
 }
 
 
@@ -351,6 +418,7 @@ pub extern "C" fn _start() -> ! {
     loop {
         units();
         saturation();
+        single_phase();
         spline();
         integrity();
         applications(); // application routines (branch apps)
