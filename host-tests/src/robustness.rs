@@ -1010,13 +1010,13 @@ pub const APPLICATION_SELECTORS: u32 = 4;
 /// Highest single-phase enthalpy accepted, J/kg: h of steam at 1073.15 K
 /// and low pressure is about 4.16 MJ/kg (IF97 Region 2, from memory),
 /// rounded up.
-pub const SINGLE_PHASE_ENTHALPY_MAX_J_KG: f32 = 4.2e6;
+pub const APPLICATION_ENTHALPY_MAX_J_KG: f32 = 4.2e6;
 /// Lowest viscosity accepted, Pa·s: vapour at the triple point is about
 /// 9 µPa·s (R12-08, from memory), rounded down.
-pub const VISCOSITY_MIN_PA_S: f32 = 1.0e-6;
+pub const APPLICATION_VISCOSITY_MIN_PA_S: f32 = 1.0e-6;
 /// Highest viscosity accepted, Pa·s: liquid at 273.16 K is about
 /// 1.79 mPa·s (R12-08, from memory), rounded up.
-pub const VISCOSITY_MAX_PA_S: f32 = 2.0e-3;
+pub const APPLICATION_VISCOSITY_MAX_PA_S: f32 = 2.0e-3;
 
 /// Alarm thresholds tried, K (the last ones invalid).
 const ALARM_THRESHOLDS_K: [f32; 4] = [5.0, 0.0, f32::NAN, -1.0];
@@ -1045,7 +1045,7 @@ fn check_flowing(c: &FlowingConditions, threshold_k: f32) -> Result<(), Violatio
         "flowing enthalpy",
         c.enthalpy_j_kg,
         ENTHALPY_MIN_J_KG,
-        SINGLE_PHASE_ENTHALPY_MAX_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
     )?;
     in_range(
         "isentropic exponent",
@@ -1056,8 +1056,8 @@ fn check_flowing(c: &FlowingConditions, threshold_k: f32) -> Result<(), Violatio
     in_range(
         "viscosity",
         c.viscosity_pa_s,
-        VISCOSITY_MIN_PA_S,
-        VISCOSITY_MAX_PA_S,
+        APPLICATION_VISCOSITY_MIN_PA_S,
+        APPLICATION_VISCOSITY_MAX_PA_S,
     )?;
     match c.saturation_margin_k {
         Some(m) => {
@@ -1080,13 +1080,13 @@ fn check_energy(e: &EnergyFlow) -> Result<(), Violation> {
         "steam enthalpy",
         e.steam_enthalpy_j_kg,
         ENTHALPY_MIN_J_KG,
-        SINGLE_PHASE_ENTHALPY_MAX_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
     )?;
     in_range(
         "water enthalpy",
         e.water_enthalpy_j_kg,
         ENTHALPY_MIN_J_KG,
-        SINGLE_PHASE_ENTHALPY_MAX_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
     )?;
     check_energy_product(
         e.energy_flow_w,
@@ -1153,7 +1153,7 @@ fn check_calorimeter(r: &ThrottlingCalorimeterReading) -> Result<(), Violation> 
         "line enthalpy",
         r.line_enthalpy_j_kg,
         ENTHALPY_MIN_J_KG,
-        SINGLE_PHASE_ENTHALPY_MAX_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
     )?;
     if r.line_steam_dry && r.dryness_fraction != 1.0 {
         return Err(format!("dry line steam with x = {}", r.dryness_fraction));
