@@ -17,7 +17,11 @@
 #      each core, runs it and decodes its frames with defmt-print (installed
 #      with cargo install if missing, about 2 minutes once); the three cores
 #      must log the same text,
-#   9. runs the cost measurement (target/cost/*.csv).
+#   9. runs the cost measurement (target/cost/*.csv),
+#  10. runs every fuzz-corpus input on the M4F and fails if one exceeds a
+#      stated target, the documented limit of the saturated state at T,
+#      the stack target or its sweep's worst case + margin
+#      (scripts/measure-fuzz-cost.sh), and checks that this check can fail.
 # Any failure stops the script with a non-zero status.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -174,5 +178,30 @@ echo "decoded and identical on ${targets[*]}"
 
 step "cost measurement"
 scripts/measure-cost.sh "${targets[@]}"
+
+# The limits and the rule are in scripts/cost-table.py (the comment above DOCUMENTED_LIMITS): the
+# stated M4F targets; saturated_state_at_temperature, which misses its 250
+# target in the sweep (298), is held to 298 as its documented limit, not
+# passed as meeting 250; stack <= 256 B; and no input above its sweep's
+# worst case by more than max(16, 10 %).
+step "fuzz corpus worst case on the Cortex-M4F"
+scripts/measure-fuzz-cost.sh thumbv7em-none-eabihf
+
+step "a corpus input over its limit fails (harness check)"
+# The same run against a sweep whose saturated state at p took at most 100
+# instructions: the corpus's 172 must fail the no-slow-path rule.
+doctored=target/cost/doctored-sweep.csv
+awk -F, -v OFS=, '$1 == "saturated_state_at_pressure" {$5 = 100} {print}' \
+  target/cost/thumbv7em-none-eabihf.csv >"$doctored"
+status=0
+python3 scripts/cost-table.py corpus target/cost/thumbv7em-none-eabihf.corpus-stdout \
+  target/cost/thumbv7em-none-eabihf.corpus-marks.log "$doctored" "$out/doctored-inputs.csv" \
+  "$out/doctored-corpus.csv" >/dev/null 2>"$out/doctored.err" || status=$?
+if [ "$status" = 0 ] || ! grep -q "saturated_state_at_pressure" "$out/doctored.err"; then
+  echo "firmware: the corpus check passed against a doctored sweep (status $status)" >&2
+  exit 1
+fi
+cat "$out/doctored.err"
+echo "exit status $status, as it must be"
 
 step "done"

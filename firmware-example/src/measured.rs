@@ -16,6 +16,9 @@
 //! kernel's spline evaluation makes) and a 20-term Horner polynomial in f32
 //! and in f64 (the f64 one is what a direct double-precision formulation
 //! costs on a core without a double FPU).
+//!
+//! [`CORPUS_CALLS`] maps every function the fuzz target names to its
+//! wrapper, for the fuzz-corpus cost bench (`src/bin/fuzz_cost.rs`).
 
 use core::hint::black_box;
 
@@ -669,4 +672,435 @@ fn call_f64_phase_from_pressure_enthalpy(x: [f32; 2]) -> u32 {
             (h - s.liquid.enthalpy_j_kg) / (s.vapour.enthalpy_j_kg - s.liquid.enthalpy_j_kg)
         }),
     )
+}
+
+/// One fuzzed kernel function as the corpus cost bench
+/// (`src/bin/fuzz_cost.rs`) calls it: every input of the fuzz corpus
+/// (`vectors/fuzz-corpus.bin`) goes through the entry of the function it
+/// names. Where a [`KERNEL`] row measures the same call, the entry uses the
+/// same wrapper, so the corpus worst case compares with the sweep's.
+pub struct CorpusCall {
+    /// Name as the fuzz target names it (`CHECKED_FUNCTIONS` in
+    /// `host-tests/src/robustness.rs`).
+    pub name: &'static str,
+    /// The [`KERNEL`] row with the same wrapper, if any.
+    pub sweep: Option<&'static str>,
+    /// The wrapper's input from a corpus input (a, b, selector): the
+    /// selector becomes the property index (mod 12) or the table (mod 2),
+    /// as the fuzz target's checker uses it. Computed outside the markers.
+    pub input: fn(f32, f32, u32) -> [f32; 2],
+    /// The call measured (builds the unit types a caller must build).
+    pub call: fn([f32; 2]) -> u32,
+}
+
+fn corpus_a_b(a: f32, b: f32, _selector: u32) -> [f32; 2] {
+    [a, b]
+}
+
+fn corpus_a_property(a: f32, _b: f32, selector: u32) -> [f32; 2] {
+    [a, (selector % 12) as f32]
+}
+
+fn corpus_a_table(a: f32, _b: f32, selector: u32) -> [f32; 2] {
+    [a, (selector % 2) as f32]
+}
+
+const fn corpus(
+    name: &'static str,
+    sweep: Option<&'static str>,
+    input: fn(f32, f32, u32) -> [f32; 2],
+    call: fn([f32; 2]) -> u32,
+) -> CorpusCall {
+    CorpusCall {
+        name,
+        sweep,
+        input,
+        call,
+    }
+}
+
+/// Every function the fuzz target chooses among, by its fuzz name.
+pub const CORPUS_CALLS: &[CorpusCall] = &[
+    corpus(
+        "AbsolutePressure::from_pa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_from_pa,
+    ),
+    corpus(
+        "AbsolutePressure::from_kpa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_from_kpa,
+    ),
+    corpus(
+        "AbsolutePressure::from_bar",
+        Some("absolute_pressure_from_bar"),
+        corpus_a_b,
+        call_absolute_pressure_from_bar,
+    ),
+    corpus(
+        "AbsolutePressure::from_mpa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_from_mpa,
+    ),
+    corpus(
+        "AbsolutePressure::from_gauge",
+        Some("absolute_pressure_from_gauge"),
+        corpus_a_b,
+        call_absolute_pressure_from_gauge,
+    ),
+    corpus(
+        "AbsolutePressure::as_pa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_as_pa,
+    ),
+    corpus(
+        "AbsolutePressure::as_kpa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_as_kpa,
+    ),
+    corpus(
+        "AbsolutePressure::as_bar",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_as_bar,
+    ),
+    corpus(
+        "AbsolutePressure::as_mpa",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_as_mpa,
+    ),
+    corpus(
+        "AbsolutePressure::to_gauge",
+        None,
+        corpus_a_b,
+        call_absolute_pressure_to_gauge,
+    ),
+    corpus(
+        "GaugePressure::from_pa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_from_pa,
+    ),
+    corpus(
+        "GaugePressure::from_kpa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_from_kpa,
+    ),
+    corpus(
+        "GaugePressure::from_bar",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_from_bar,
+    ),
+    corpus(
+        "GaugePressure::from_mpa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_from_mpa,
+    ),
+    corpus(
+        "GaugePressure::as_pa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_as_pa,
+    ),
+    corpus(
+        "GaugePressure::as_kpa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_as_kpa,
+    ),
+    corpus(
+        "GaugePressure::as_bar",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_as_bar,
+    ),
+    corpus(
+        "GaugePressure::as_mpa",
+        None,
+        corpus_a_b,
+        call_gauge_pressure_as_mpa,
+    ),
+    corpus(
+        "Temperature::from_kelvin",
+        None,
+        corpus_a_b,
+        call_temperature_from_kelvin,
+    ),
+    corpus(
+        "Temperature::from_celsius",
+        Some("temperature_from_celsius"),
+        corpus_a_b,
+        call_temperature_from_celsius,
+    ),
+    corpus(
+        "Temperature::as_kelvin",
+        None,
+        corpus_a_b,
+        call_temperature_as_kelvin,
+    ),
+    corpus(
+        "Temperature::as_celsius",
+        None,
+        corpus_a_b,
+        call_temperature_as_celsius,
+    ),
+    corpus(
+        "saturation_temperature",
+        Some("saturation_temperature"),
+        corpus_a_b,
+        call_saturation_temperature,
+    ),
+    corpus(
+        "saturation_pressure",
+        Some("saturation_pressure"),
+        corpus_a_b,
+        call_saturation_pressure,
+    ),
+    corpus(
+        "saturated_state_at_pressure",
+        Some("saturated_state_at_pressure"),
+        corpus_a_b,
+        call_saturated_state_at_pressure,
+    ),
+    corpus(
+        "saturated_state_at_temperature",
+        Some("saturated_state_at_temperature"),
+        corpus_a_b,
+        call_saturated_state_at_temperature,
+    ),
+    corpus(
+        "saturated_property_at_pressure",
+        Some("saturated_property_at_pressure"),
+        corpus_a_property,
+        call_saturated_property_at_pressure,
+    ),
+    corpus(
+        "saturated_property_at_temperature",
+        Some("saturated_property_at_temperature"),
+        corpus_a_property,
+        call_saturated_property_at_temperature,
+    ),
+    corpus(
+        "Phase::dryness_fraction",
+        None,
+        corpus_a_b,
+        call_phase_dryness_fraction,
+    ),
+    corpus(
+        "phase_from_pressure_enthalpy",
+        Some("phase_from_pressure_enthalpy"),
+        corpus_a_b,
+        call_phase_from_pressure_enthalpy,
+    ),
+    corpus(
+        "phase_from_pressure_entropy",
+        Some("phase_from_pressure_entropy"),
+        corpus_a_b,
+        call_phase_from_pressure_entropy,
+    ),
+    corpus(
+        "phase_from_pressure_specific_volume",
+        Some("phase_from_pressure_specific_volume"),
+        corpus_a_b,
+        call_phase_from_pressure_specific_volume,
+    ),
+    corpus(
+        "phase_from_temperature_enthalpy",
+        Some("phase_from_temperature_enthalpy"),
+        corpus_a_b,
+        call_phase_from_temperature_enthalpy,
+    ),
+    corpus(
+        "phase_from_temperature_entropy",
+        Some("phase_from_temperature_entropy"),
+        corpus_a_b,
+        call_phase_from_temperature_entropy,
+    ),
+    corpus(
+        "wet_steam_at_pressure",
+        Some("wet_steam_at_pressure"),
+        corpus_a_b,
+        call_wet_steam_at_pressure,
+    ),
+    corpus(
+        "wet_steam_at_temperature",
+        Some("wet_steam_at_temperature"),
+        corpus_a_b,
+        call_wet_steam_at_temperature,
+    ),
+    corpus(
+        "accuracy_at_saturation_temperature_k",
+        Some("accuracy_at_saturation_temperature_k"),
+        corpus_a_b,
+        call_accuracy_at_saturation_temperature_k,
+    ),
+    corpus(
+        "UniformCubicTable::locate",
+        None,
+        corpus_a_table,
+        call_uniform_locate_cubic,
+    ),
+    corpus(
+        "OctaveCubicTable::locate",
+        None,
+        corpus_a_table,
+        call_octave_locate_cubic,
+    ),
+    corpus("cubic", None, corpus_a_table, call_uniform_locate_cubic),
+];
+
+/// The bits of a value, through `black_box` so it is computed.
+fn value_bits(v: f32) -> u32 {
+    black_box(v).to_bits()
+}
+
+#[inline(never)]
+fn call_absolute_pressure_from_pa(x: [f32; 2]) -> u32 {
+    consume(AbsolutePressure::from_pa(x[0]))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_from_kpa(x: [f32; 2]) -> u32 {
+    consume(AbsolutePressure::from_kpa(x[0]))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_from_mpa(x: [f32; 2]) -> u32 {
+    consume(AbsolutePressure::from_mpa(x[0]))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_as_pa(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| value_bits(p.as_pa()))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_as_kpa(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| value_bits(p.as_kpa()))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_as_bar(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| value_bits(p.as_bar()))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_as_mpa(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(ERROR_BITS, |p| value_bits(p.as_mpa()))
+}
+
+#[inline(never)]
+fn call_absolute_pressure_to_gauge(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), pressure(x[1])) {
+        (Ok(p), Ok(ambient)) => value_bits(p.to_gauge(ambient).as_pa()),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_gauge_pressure_from_pa(x: [f32; 2]) -> u32 {
+    consume(GaugePressure::from_pa(x[0]))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_from_kpa(x: [f32; 2]) -> u32 {
+    consume(GaugePressure::from_kpa(x[0]))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_from_bar(x: [f32; 2]) -> u32 {
+    consume(GaugePressure::from_bar(x[0]))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_from_mpa(x: [f32; 2]) -> u32 {
+    consume(GaugePressure::from_mpa(x[0]))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_as_pa(x: [f32; 2]) -> u32 {
+    GaugePressure::from_pa(x[0]).map_or(ERROR_BITS, |g| value_bits(g.as_pa()))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_as_kpa(x: [f32; 2]) -> u32 {
+    GaugePressure::from_pa(x[0]).map_or(ERROR_BITS, |g| value_bits(g.as_kpa()))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_as_bar(x: [f32; 2]) -> u32 {
+    GaugePressure::from_pa(x[0]).map_or(ERROR_BITS, |g| value_bits(g.as_bar()))
+}
+
+#[inline(never)]
+fn call_gauge_pressure_as_mpa(x: [f32; 2]) -> u32 {
+    GaugePressure::from_pa(x[0]).map_or(ERROR_BITS, |g| value_bits(g.as_mpa()))
+}
+
+#[inline(never)]
+fn call_temperature_from_kelvin(x: [f32; 2]) -> u32 {
+    consume(Temperature::from_kelvin(x[0]))
+}
+
+#[inline(never)]
+fn call_temperature_as_kelvin(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| value_bits(t.as_kelvin()))
+}
+
+#[inline(never)]
+fn call_temperature_as_celsius(x: [f32; 2]) -> u32 {
+    temperature(x[0]).map_or(ERROR_BITS, |t| value_bits(t.as_celsius()))
+}
+
+/// The dryness fraction of the phase from (p, h), as a caller reads it.
+#[inline(never)]
+fn call_phase_dryness_fraction(x: [f32; 2]) -> u32 {
+    pressure(x[0]).map_or(
+        ERROR_BITS,
+        |p| match vapora_kernel::quality::phase_from_pressure_enthalpy(p, x[1]) {
+            Ok(phase) => black_box(phase.dryness_fraction()).map_or(0, f32::to_bits),
+            Err(_) => ERROR_BITS,
+        },
+    )
+}
+
+/// Every quantity of the located interval, evaluated.
+fn evaluate_located<const P: usize>(located: Option<(&[[f32; 4]; P], f32)>) -> u32 {
+    match located {
+        None => ERROR_BITS,
+        Some((block, t)) => block.iter().fold(0u32, |acc, c| {
+            acc.rotate_left(3) ^ value_bits(vapora_kernel::spline::cubic(c, t))
+        }),
+    }
+}
+
+/// `x[1]` = 0: STATE_LOW, else STATE_HIGH (the uniform tables).
+#[inline(never)]
+fn call_uniform_locate_cubic(x: [f32; 2]) -> u32 {
+    use vapora_kernel::tables::saturation::{STATE_HIGH, STATE_LOW};
+    if x[1] == 0.0 {
+        evaluate_located(STATE_LOW.locate(x[0]))
+    } else {
+        evaluate_located(STATE_HIGH.locate(x[0]))
+    }
+}
+
+/// `x[1]` = 0: TEMPERATURE_LOW, else TEMPERATURE_HIGH (the octave tables).
+#[inline(never)]
+fn call_octave_locate_cubic(x: [f32; 2]) -> u32 {
+    use vapora_kernel::tables::saturation::{TEMPERATURE_HIGH, TEMPERATURE_LOW};
+    if x[1] == 0.0 {
+        evaluate_located(TEMPERATURE_LOW.locate(x[0]))
+    } else {
+        evaluate_located(TEMPERATURE_HIGH.locate(x[0]))
+    }
 }

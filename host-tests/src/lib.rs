@@ -4,6 +4,7 @@
 
 pub mod accuracy;
 pub mod bit_vectors;
+pub mod fuzz_vectors;
 pub mod regress;
 pub mod report;
 pub mod robustness;

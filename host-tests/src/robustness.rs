@@ -272,6 +272,59 @@ pub fn input_shape(function: &str) -> InputShape {
     InputShape { a, b, selectors }
 }
 
+/// The functions the fuzz target chooses among: [`CHECKED_FUNCTIONS`] that
+/// read an input (the integrity functions read none; the tests call them
+/// once), in that order. Byte 0 of a fuzz input indexes this list modulo
+/// its length.
+pub fn fuzzed_functions() -> Vec<&'static str> {
+    CHECKED_FUNCTIONS
+        .iter()
+        .copied()
+        .filter(|f| input_shape(f).a)
+        .collect()
+}
+
+/// One fuzz input decoded: the function it names and the inputs of
+/// [`check`].
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FuzzInput {
+    /// Index of the function in [`fuzzed_functions`].
+    pub index: usize,
+    /// The function's name, as in [`CHECKED_FUNCTIONS`].
+    pub function: &'static str,
+    /// First input (f32 bits of bytes 1..5).
+    pub a: f32,
+    /// Second input (f32 bits of bytes 5..9).
+    pub b: f32,
+    /// Selector (bytes 9..13).
+    pub selector: u32,
+}
+
+/// Little-endian u32 word `i` after byte 0 (missing bytes are zero).
+fn fuzz_word(data: &[u8], i: usize) -> u32 {
+    let mut bytes = [0u8; 4];
+    for (k, b) in bytes.iter_mut().enumerate() {
+        *b = data.get(1 + 4 * i + k).copied().unwrap_or(0);
+    }
+    u32::from_le_bytes(bytes)
+}
+
+/// Decodes a fuzz input the way the fuzz target (`kernel/fuzz`) does: byte
+/// 0 picks the function among `functions` (normally [`fuzzed_functions`])
+/// modulo their number, then a, b and the selector as little-endian u32
+/// (missing bytes are zero). `None` for empty data (the target ignores it).
+pub fn decode_fuzz_input(functions: &[&'static str], data: &[u8]) -> Option<FuzzInput> {
+    let &choice = data.first()?;
+    let index = usize::from(choice).checked_rem(functions.len())?;
+    Some(FuzzInput {
+        index,
+        function: functions.get(index).copied()?,
+        a: f32::from_bits(fuzz_word(data, 0)),
+        b: f32::from_bits(fuzz_word(data, 1)),
+        selector: fuzz_word(data, 2),
+    })
+}
+
 /// Every saturated property, in declaration order.
 pub const PROPERTIES: [SaturatedProperty; 12] = [
     SaturatedProperty::LiquidDensity,

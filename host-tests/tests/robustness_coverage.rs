@@ -190,7 +190,10 @@ fn the_fuzz_target_sweeps_the_checked_functions() {
     let target =
         fs::read_to_string(repository().join("kernel/fuzz/fuzz_targets/robustness.rs")).unwrap();
     assert!(
-        target.contains("CHECKED_FUNCTIONS") && target.contains("check(name, a, b, selector)"),
-        "the fuzz target no longer picks from robustness::CHECKED_FUNCTIONS through check()"
+        target.contains("decode_fuzz_input(&functions, data)")
+            && target.contains("fuzzed_functions()")
+            && target.contains("check(name, a, b, selector)"),
+        "the fuzz target no longer picks from robustness::fuzzed_functions (CHECKED_FUNCTIONS \
+         that read an input) through decode_fuzz_input and check()"
     );
 }
