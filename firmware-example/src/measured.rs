@@ -25,8 +25,8 @@ use core::hint::black_box;
 use vapora_kernel::saturation::{
     SaturatedProperty, PRESSURE_MAX_PA, PRESSURE_MIN_PA, TEMPERATURE_MAX_K, TEMPERATURE_MIN_K,
 };
-use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
 use vapora_kernel::single_phase;
+use vapora_kernel::tables::saturation::{BOUNDARY_PRESSURE_PA, BOUNDARY_TEMPERATURE_K};
 use vapora_kernel::units::{AbsolutePressure, GaugePressure, Temperature};
 use vapora_tables::if97::{region4, saturation as if97_saturation};
 
@@ -956,7 +956,220 @@ pub const CORPUS_CALLS: &[CorpusCall] = &[
         call_octave_locate_cubic,
     ),
     corpus("cubic", None, corpus_a_table, call_uniform_locate_cubic),
+    // ---- trial merge (apps + sp + main): the single-phase functions (branch sp)
+    corpus(
+        "superheated_vapour",
+        None,
+        corpus_a_b,
+        call_superheated_vapour,
+    ),
+    corpus(
+        "compressed_liquid",
+        None,
+        corpus_a_b,
+        call_compressed_liquid,
+    ),
+    corpus(
+        "state_at_pressure_temperature",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_temperature,
+    ),
+    corpus(
+        "state_at_pressure_enthalpy",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_enthalpy,
+    ),
+    corpus(
+        "state_at_pressure_entropy",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_entropy,
+    ),
+    corpus(
+        "BicubicSheet::evaluate",
+        None,
+        corpus_a_b,
+        call_sheet_evaluate,
+    ),
+    corpus(
+        "BicubicSheet::evaluate_one",
+        None,
+        corpus_a_b,
+        call_sheet_evaluate,
+    ),
+    // ---- application routines (branch apps): fixed settings, the
+    // selector-chosen ones of the robustness checker's first variant.
+    corpus(
+        "steam_flowing_conditions",
+        None,
+        corpus_a_b,
+        call_steam_flowing_conditions,
+    ),
+    corpus(
+        "water_flowing_conditions",
+        None,
+        corpus_a_b,
+        call_water_flowing_conditions,
+    ),
+    corpus(
+        "energy_flow_from_enthalpies_w",
+        None,
+        corpus_a_b,
+        call_energy_flow_from_enthalpies_w,
+    ),
+    corpus("energy_flow", None, corpus_a_b, call_energy_flow),
+    corpus(
+        "drum_level_from_densities",
+        None,
+        corpus_a_b,
+        call_drum_level_from_densities,
+    ),
+    corpus("drum_level", None, corpus_a_b, call_drum_level),
+    corpus(
+        "throttling_calorimeter_dryness",
+        None,
+        corpus_a_b,
+        call_throttling_calorimeter_dryness,
+    ),
+    corpus(
+        "separating_throttling_dryness",
+        None,
+        corpus_a_b,
+        call_separating_throttling_dryness,
+    ),
 ];
+
+// ---- trial merge: wrappers for the corpus entries above.
+#[inline(never)]
+fn call_superheated_vapour(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(single_phase::superheated_vapour(p, t)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_compressed_liquid(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(single_phase::compressed_liquid(p, t)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_sheet_evaluate(x: [f32; 2]) -> u32 {
+    match vapora_kernel::tables::single_phase::VAPOUR_LOW
+        .properties
+        .evaluate(x[0], x[1])
+    {
+        Some(v) => value_bits(v[0]),
+        None => ERROR_BITS,
+    }
+}
+
+fn drum_transmitter() -> vapora_kernel::drum_level::DrumLevelTransmitter {
+    vapora_kernel::drum_level::DrumLevelTransmitter {
+        tap_separation_m: 0.6,
+        zero_level_above_lower_tap_m: 0.3,
+        gravity_m_s2: vapora_kernel::drum_level::STANDARD_GRAVITY_M_S2,
+        minimum_drum_pressure: AbsolutePressure::STANDARD_ATMOSPHERE,
+    }
+}
+
+#[inline(never)]
+fn call_steam_flowing_conditions(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(vapora_kernel::flowing::steam_flowing_conditions(p, t, 5.0)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_water_flowing_conditions(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(vapora_kernel::flowing::water_flowing_conditions(p, t, 5.0)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_energy_flow_from_enthalpies_w(x: [f32; 2]) -> u32 {
+    consume(vapora_kernel::energy::energy_flow_from_enthalpies_w(
+        x[0], x[1], 419.1e3,
+    ))
+}
+
+#[inline(never)]
+fn call_energy_flow(x: [f32; 2]) -> u32 {
+    use vapora_kernel::energy::{energy_flow, SteamSupply};
+    match (
+        pressure(x[0]),
+        temperature(x[1]),
+        pressure(3.0e5),
+        temperature(358.15),
+    ) {
+        (Ok(p), Ok(t), Ok(pw), Ok(tw)) => consume(energy_flow(
+            1.39,
+            SteamSupply::Superheated {
+                pressure: p,
+                temperature: t,
+            },
+            pw,
+            tw,
+        )),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_drum_level_from_densities(x: [f32; 2]) -> u32 {
+    consume(vapora_kernel::drum_level::drum_level_from_densities(
+        x[0],
+        &drum_transmitter(),
+        880.4,
+        5.887,
+        x[1],
+    ))
+}
+
+#[inline(never)]
+fn call_drum_level(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(318.15)) {
+        (Ok(p), Ok(leg)) => consume(vapora_kernel::drum_level::drum_level(
+            p,
+            x[1],
+            leg,
+            &drum_transmitter(),
+        )),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_throttling_calorimeter_dryness(x: [f32; 2]) -> u32 {
+    match (pressure(1_151_325.0), pressure(x[0]), temperature(x[1])) {
+        (Ok(line), Ok(p), Ok(t)) => consume(
+            vapora_kernel::calorimeter::throttling_calorimeter_dryness(line, p, t),
+        ),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_separating_throttling_dryness(x: [f32; 2]) -> u32 {
+    match (
+        pressure(1_151_325.0),
+        pressure(101_325.0),
+        temperature(385.15),
+    ) {
+        (Ok(line), Ok(p), Ok(t)) => consume(
+            vapora_kernel::calorimeter::separating_throttling_dryness(line, p, t, x[0], x[1]),
+        ),
+        _ => ERROR_BITS,
+    }
+}
 
 /// The bits of a value, through `black_box` so it is computed.
 fn value_bits(v: f32) -> u32 {
