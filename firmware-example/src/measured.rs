@@ -186,7 +186,73 @@ pub const KERNEL: &[Measured] = &[
         input: single_phase_ps_input,
         call: call_state_at_pressure_entropy,
     },
+    // ---- trial merge: the application routines (branch apps).
+    Measured {
+        name: "steam_flowing_conditions",
+        calls: SWEEP,
+        input: superheated_pt_input,
+        call: call_steam_flowing_conditions,
+    },
+    Measured {
+        name: "water_flowing_conditions",
+        calls: SWEEP,
+        input: subcooled_pt_input,
+        call: call_water_flowing_conditions,
+    },
+    Measured {
+        name: "energy_flow",
+        calls: SWEEP,
+        input: superheated_pt_input,
+        call: call_energy_flow,
+    },
+    Measured {
+        name: "drum_level",
+        calls: SWEEP,
+        input: drum_input,
+        call: call_drum_level,
+    },
+    Measured {
+        name: "throttling_calorimeter_dryness",
+        calls: SWEEP,
+        input: calorimeter_input,
+        call: call_throttling_calorimeter_dryness,
+    },
 ];
+
+/// Saturation temperature for a sweep input (f64 formulation, outside the
+/// markers); 650 K from the critical pressure up.
+fn t_sat_for_input(p: f32) -> f32 {
+    if p < 22.064e6 {
+        region4::saturation_temperature_k_unchecked(f64::from(p)) as f32
+    } else {
+        650.0
+    }
+}
+
+/// Superheated steam: pressures 611.657 Pa to 25 MPa (log), T from 0.05 K
+/// above saturation to 1073.15 K.
+fn superheated_pt_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 611.657, 25.0e6);
+    [p, scrambled(i, t_sat_for_input(p) + 0.05, 1073.15)]
+}
+
+/// Compressed water: the same pressures, T from 273.16 K to 0.05 K below
+/// saturation.
+fn subcooled_pt_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 611.657, 25.0e6);
+    [p, scrambled(i, 273.16, t_sat_for_input(p) - 0.05)]
+}
+
+/// Drum pressures 1.5 bar(a) to 20 MPa (log), DP readings 0 to 6 kPa.
+fn drum_input(i: u32) -> [f32; 2] {
+    [sweep_log(i, 1.5e5, 20.0e6), scrambled(i, 0.0, 6.0e3)]
+}
+
+/// Calorimeter chambers 5 kPa to 1 MPa (log), 0.05 to 150 K superheated.
+fn calorimeter_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 5.0e3, 1.0e6);
+    [p, t_sat_for_input(p) + scrambled(i, 0.05, 150.0)]
+}
 
 /// The baseline: the f64 formulation evaluated on the core for the same
 /// outputs and the same inputs as the kernel row of the same name without
