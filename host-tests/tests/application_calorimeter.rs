@@ -237,3 +237,52 @@ fn the_documented_limit_of_the_method_at_atmospheric_pressure() {
     let x_min = (atmosphere.vapour.enthalpy_j_kg - h_l) / (h_v - h_l);
     close("limiting x", x_min, 0.95, 0.001);
 }
+
+#[test]
+fn over_a_range_of_lines_and_chambers_x_follows_the_formulation() {
+    // Line pressures 2 bar(a) to 15 MPa, chambers at 5 kPa and at the
+    // atmosphere, 0.5 K to 100 K superheated.
+    let mut worst_ratio: f64 = 0.0;
+    let mut readings = 0;
+    for k in 0..=20 {
+        let line_pa = (2.0e5f64.ln() + (15.0e6f64.ln() - 2.0e5f64.ln()) * k as f64 / 20.0).exp();
+        let line = AbsolutePressure::from_pa(line_pa as f32).unwrap();
+        let s = saturation::at_pressure(line.as_pa() as f64).unwrap();
+        let (h_l, h_v) = (s.liquid.enthalpy_j_kg, s.vapour.enthalpy_j_kg);
+        for p_cal_pa in [5_000.0f32, 101_325.0] {
+            let p_cal = AbsolutePressure::from_pa(p_cal_pa).unwrap();
+            let t_sat = region4::saturation_temperature_k_unchecked(p_cal_pa as f64);
+            for superheat in [0.5, 5.0, 20.0, 100.0] {
+                let t_cal = Temperature::from_kelvin((t_sat + superheat) as f32).unwrap();
+                let r = throttling_calorimeter_dryness(line, p_cal, t_cal).unwrap();
+                let h_cal = pt::properties_pt(p_cal_pa as f64, t_cal.as_kelvin() as f64)
+                    .unwrap()
+                    .enthalpy_j_kg;
+                let x = ((h_cal - h_l) / (h_v - h_l)).min(1.0);
+                let tol = dryness_tolerance(h_cal, h_l, h_v);
+                if x >= 1.0 - tol {
+                    // At or past dry saturation: dry, or x within tol of 1.
+                    assert!(r.line_steam_dry || (1.0 - r.dryness_fraction as f64) <= tol);
+                    continue;
+                }
+                readings += 1;
+                let deviation = (r.dryness_fraction as f64 - x).abs();
+                worst_ratio = worst_ratio.max(deviation / tol);
+                assert!(
+                    deviation <= tol,
+                    "line {line_pa} Pa, chamber {p_cal_pa} Pa +{superheat} K: x {}, f64 {x}, \
+                     deviation {deviation:e} > {tol:e}",
+                    r.dryness_fraction
+                );
+                close(
+                    "chamber superheat",
+                    r.calorimeter_superheat_k as f64,
+                    t_cal.as_kelvin() as f64 - t_sat,
+                    SATURATION_MARGIN_K,
+                );
+            }
+        }
+    }
+    assert!(readings > 50, "only {readings} wet readings");
+    println!("{readings} readings, worst deviation / tolerance: {worst_ratio:.3}");
+}

@@ -293,3 +293,60 @@ fn invalid_settings_are_rejected() {
         Err(ApplicationError::NoDensityDifference { .. })
     ));
 }
+
+#[test]
+fn over_the_drum_range_the_level_follows_the_formulation() {
+    // Drum pressures 2 bar(a) to 20 MPa (T_sat below Tc − 1 K), legs from
+    // 5 °C to 20 K below saturation, DP across the span and beyond it.
+    let t = harrowmere();
+    let mut worst_ratio: f64 = 0.0;
+    for k in 0..=40 {
+        let p_pa =
+            (2.0e5f64.ln() + (20.0e6f64.ln() - 2.0e5f64.ln()) * k as f64 / 40.0).exp() as f32;
+        let drum = AbsolutePressure::from_pa(p_pa).unwrap();
+        let p = drum.as_pa() as f64;
+        let s = saturation::at_pressure(p).unwrap();
+        let t_sat = region4::saturation_temperature_k_unchecked(p);
+        let mut legs_k: Vec<f32> = [278.15f32, 318.15, 423.15]
+            .into_iter()
+            .filter(|&k| f64::from(k) < t_sat - 20.0)
+            .collect();
+        legs_k.push((t_sat - 20.0) as f32);
+        for leg_k in legs_k {
+            let leg = Temperature::from_kelvin(leg_k).unwrap();
+            let leg_rho = pt::properties_pt(p, leg.as_kelvin() as f64)
+                .unwrap()
+                .density_kg_m3;
+            for dp in [-500.0f32, 0.0, 1_000.0, 2_500.0, 4_000.0, 7_000.0] {
+                let l = drum_level(drum, dp, leg, &t).unwrap();
+                let (h, z, g) = (
+                    t.tap_separation_m as f64,
+                    t.zero_level_above_lower_tap_m as f64,
+                    t.gravity_m_s2 as f64,
+                );
+                let level =
+                    |d: &[f64]| (g * (d[2] - d[1]) * h - dp as f64) / (g * (d[0] - d[1])) - z;
+                let densities = [s.liquid.density_kg_m3, s.vapour.density_kg_m3, leg_rho];
+                let bounds = [
+                    densities[0] * ACC.liquid_density_relative as f64,
+                    densities[1] * ACC.vapour_density_relative as f64,
+                    densities[2] * SINGLE_PHASE_DENSITY_REL,
+                ];
+                // Rounding grows with |h_w|·(ρ'/(ρ' − ρ'')) at high pressure.
+                let expected = level(&densities);
+                let amplification = densities[0] / (densities[0] - densities[1]);
+                let tolerance = worst_corner_deviation(level, &densities, &bounds)
+                    + rounding_m(&t) * amplification * (1.0 + expected.abs() / h);
+                let deviation = (l.level_m as f64 - expected).abs();
+                worst_ratio = worst_ratio.max(deviation / tolerance);
+                assert!(
+                    deviation <= tolerance,
+                    "p {p} Pa, leg {leg_k} K, DP {dp} Pa: level {} m, f64 {expected} m, \
+                     deviation {deviation:e} > {tolerance:e}",
+                    l.level_m
+                );
+            }
+        }
+    }
+    println!("worst deviation / tolerance: {worst_ratio:.3}");
+}
