@@ -186,7 +186,73 @@ pub const KERNEL: &[Measured] = &[
         input: single_phase_ps_input,
         call: call_state_at_pressure_entropy,
     },
+    // ---- trial merge: the application routines (branch apps).
+    Measured {
+        name: "steam_flowing_conditions",
+        calls: SWEEP,
+        input: superheated_pt_input,
+        call: call_steam_flowing_conditions,
+    },
+    Measured {
+        name: "water_flowing_conditions",
+        calls: SWEEP,
+        input: subcooled_pt_input,
+        call: call_water_flowing_conditions,
+    },
+    Measured {
+        name: "energy_flow",
+        calls: SWEEP,
+        input: superheated_pt_input,
+        call: call_energy_flow,
+    },
+    Measured {
+        name: "drum_level",
+        calls: SWEEP,
+        input: drum_input,
+        call: call_drum_level,
+    },
+    Measured {
+        name: "throttling_calorimeter_dryness",
+        calls: SWEEP,
+        input: calorimeter_input,
+        call: call_throttling_calorimeter_dryness,
+    },
 ];
+
+/// Saturation temperature for a sweep input (f64 formulation, outside the
+/// markers); 650 K from the critical pressure up.
+fn t_sat_for_input(p: f32) -> f32 {
+    if p < 22.064e6 {
+        region4::saturation_temperature_k_unchecked(f64::from(p)) as f32
+    } else {
+        650.0
+    }
+}
+
+/// Superheated steam: pressures 611.657 Pa to 25 MPa (log), T from 0.05 K
+/// above saturation to 1073.15 K.
+fn superheated_pt_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 611.657, 25.0e6);
+    [p, scrambled(i, t_sat_for_input(p) + 0.05, 1073.15)]
+}
+
+/// Compressed water: the same pressures, T from 273.16 K to 0.05 K below
+/// saturation.
+fn subcooled_pt_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 611.657, 25.0e6);
+    [p, scrambled(i, 273.16, t_sat_for_input(p) - 0.05)]
+}
+
+/// Drum pressures 1.5 bar(a) to 20 MPa (log), DP readings 0 to 6 kPa.
+fn drum_input(i: u32) -> [f32; 2] {
+    [sweep_log(i, 1.5e5, 20.0e6), scrambled(i, 0.0, 6.0e3)]
+}
+
+/// Calorimeter chambers 5 kPa to 1 MPa (log), 0.05 to 150 K superheated.
+fn calorimeter_input(i: u32) -> [f32; 2] {
+    let p = sweep_log(i, 5.0e3, 1.0e6);
+    [p, t_sat_for_input(p) + scrambled(i, 0.05, 150.0)]
+}
 
 /// The baseline: the f64 formulation evaluated on the core for the same
 /// outputs and the same inputs as the kernel row of the same name without
@@ -956,7 +1022,220 @@ pub const CORPUS_CALLS: &[CorpusCall] = &[
         call_octave_locate_cubic,
     ),
     corpus("cubic", None, corpus_a_table, call_uniform_locate_cubic),
+    // ---- trial merge (apps + sp + main): the single-phase functions (branch sp)
+    corpus(
+        "superheated_vapour",
+        None,
+        corpus_a_b,
+        call_superheated_vapour,
+    ),
+    corpus(
+        "compressed_liquid",
+        None,
+        corpus_a_b,
+        call_compressed_liquid,
+    ),
+    corpus(
+        "state_at_pressure_temperature",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_temperature,
+    ),
+    corpus(
+        "state_at_pressure_enthalpy",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_enthalpy,
+    ),
+    corpus(
+        "state_at_pressure_entropy",
+        None,
+        corpus_a_b,
+        call_state_at_pressure_entropy,
+    ),
+    corpus(
+        "BicubicSheet::evaluate",
+        None,
+        corpus_a_b,
+        call_sheet_evaluate,
+    ),
+    corpus(
+        "BicubicSheet::evaluate_one",
+        None,
+        corpus_a_b,
+        call_sheet_evaluate,
+    ),
+    // ---- application routines (branch apps): fixed settings, the
+    // selector-chosen ones of the robustness checker's first variant.
+    corpus(
+        "steam_flowing_conditions",
+        None,
+        corpus_a_b,
+        call_steam_flowing_conditions,
+    ),
+    corpus(
+        "water_flowing_conditions",
+        None,
+        corpus_a_b,
+        call_water_flowing_conditions,
+    ),
+    corpus(
+        "energy_flow_from_enthalpies_w",
+        None,
+        corpus_a_b,
+        call_energy_flow_from_enthalpies_w,
+    ),
+    corpus("energy_flow", None, corpus_a_b, call_energy_flow),
+    corpus(
+        "drum_level_from_densities",
+        None,
+        corpus_a_b,
+        call_drum_level_from_densities,
+    ),
+    corpus("drum_level", None, corpus_a_b, call_drum_level),
+    corpus(
+        "throttling_calorimeter_dryness",
+        None,
+        corpus_a_b,
+        call_throttling_calorimeter_dryness,
+    ),
+    corpus(
+        "separating_throttling_dryness",
+        None,
+        corpus_a_b,
+        call_separating_throttling_dryness,
+    ),
 ];
+
+// ---- trial merge: wrappers for the corpus entries above.
+#[inline(never)]
+fn call_superheated_vapour(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(single_phase::superheated_vapour(p, t)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_compressed_liquid(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(single_phase::compressed_liquid(p, t)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_sheet_evaluate(x: [f32; 2]) -> u32 {
+    match vapora_kernel::tables::single_phase::VAPOUR_LOW
+        .properties
+        .evaluate(x[0], x[1])
+    {
+        Some(v) => value_bits(v[0]),
+        None => ERROR_BITS,
+    }
+}
+
+fn drum_transmitter() -> vapora_kernel::drum_level::DrumLevelTransmitter {
+    vapora_kernel::drum_level::DrumLevelTransmitter {
+        tap_separation_m: 0.6,
+        zero_level_above_lower_tap_m: 0.3,
+        gravity_m_s2: vapora_kernel::drum_level::STANDARD_GRAVITY_M_S2,
+        minimum_drum_pressure: AbsolutePressure::STANDARD_ATMOSPHERE,
+    }
+}
+
+#[inline(never)]
+fn call_steam_flowing_conditions(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(vapora_kernel::flowing::steam_flowing_conditions(p, t, 5.0)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_water_flowing_conditions(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(x[1])) {
+        (Ok(p), Ok(t)) => consume(vapora_kernel::flowing::water_flowing_conditions(p, t, 5.0)),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_energy_flow_from_enthalpies_w(x: [f32; 2]) -> u32 {
+    consume(vapora_kernel::energy::energy_flow_from_enthalpies_w(
+        x[0], x[1], 419.1e3,
+    ))
+}
+
+#[inline(never)]
+fn call_energy_flow(x: [f32; 2]) -> u32 {
+    use vapora_kernel::energy::{energy_flow, SteamSupply};
+    match (
+        pressure(x[0]),
+        temperature(x[1]),
+        pressure(3.0e5),
+        temperature(358.15),
+    ) {
+        (Ok(p), Ok(t), Ok(pw), Ok(tw)) => consume(energy_flow(
+            1.39,
+            SteamSupply::Superheated {
+                pressure: p,
+                temperature: t,
+            },
+            pw,
+            tw,
+        )),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_drum_level_from_densities(x: [f32; 2]) -> u32 {
+    consume(vapora_kernel::drum_level::drum_level_from_densities(
+        x[0],
+        &drum_transmitter(),
+        880.4,
+        5.887,
+        x[1],
+    ))
+}
+
+#[inline(never)]
+fn call_drum_level(x: [f32; 2]) -> u32 {
+    match (pressure(x[0]), temperature(318.15)) {
+        (Ok(p), Ok(leg)) => consume(vapora_kernel::drum_level::drum_level(
+            p,
+            x[1],
+            leg,
+            &drum_transmitter(),
+        )),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_throttling_calorimeter_dryness(x: [f32; 2]) -> u32 {
+    match (pressure(1_151_325.0), pressure(x[0]), temperature(x[1])) {
+        (Ok(line), Ok(p), Ok(t)) => consume(
+            vapora_kernel::calorimeter::throttling_calorimeter_dryness(line, p, t),
+        ),
+        _ => ERROR_BITS,
+    }
+}
+
+#[inline(never)]
+fn call_separating_throttling_dryness(x: [f32; 2]) -> u32 {
+    match (
+        pressure(1_151_325.0),
+        pressure(101_325.0),
+        temperature(385.15),
+    ) {
+        (Ok(line), Ok(p), Ok(t)) => consume(
+            vapora_kernel::calorimeter::separating_throttling_dryness(line, p, t, x[0], x[1]),
+        ),
+        _ => ERROR_BITS,
+    }
+}
 
 /// The bits of a value, through `black_box` so it is computed.
 fn value_bits(v: f32) -> u32 {

@@ -199,6 +199,16 @@ pub const CHECKED_FUNCTIONS: &[&str] = &[
     "state_at_pressure_entropy",
     "BicubicSheet::evaluate",
     "BicubicSheet::evaluate_one",
+    // ---- application routines block (issue 5, branch apps)
+    "steam_flowing_conditions",
+    "water_flowing_conditions",
+    "energy_flow_from_enthalpies_w",
+    "energy_flow",
+    "drum_level_from_densities",
+    "drum_level",
+    "throttling_calorimeter_dryness",
+    "separating_throttling_dryness",
+    // ---- end of the application routines block
 ];
 
 /// Which inputs of [`check`] a function reads, so that sweeps need not
@@ -234,6 +244,18 @@ pub fn input_shape(function: &str) -> InputShape {
         "BicubicSheet::evaluate" | "BicubicSheet::evaluate_one" => (true, true, 18),
         "SheetData::of_sheet" | "SheetData::checksum" => (false, false, 18),
         "SinglePhaseTables::compiled" | "check_single_phase_checksums" => (false, false, 1),
+        // ---- application routines block (issue 5, branch apps): `a` and `b`
+        // are the two inputs named in `check_application`, the selector picks
+        // the remaining settings from a small list.
+        "steam_flowing_conditions"
+        | "water_flowing_conditions"
+        | "energy_flow_from_enthalpies_w"
+        | "energy_flow"
+        | "drum_level_from_densities"
+        | "drum_level"
+        | "throttling_calorimeter_dryness"
+        | "separating_throttling_dryness" => (true, true, APPLICATION_SELECTORS),
+        // ---- end of the application routines block
         "saturated_property_at_pressure" | "saturated_property_at_temperature" => {
             (true, false, PROPERTIES.len() as u32)
         }
@@ -1008,6 +1030,337 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
             check_single_phase_checksums(&SinglePhaseTables::compiled())
                 .map_err(|e| format!("single-phase checksums failed: {e}"))
         }
+        "steam_flowing_conditions"
+        | "water_flowing_conditions"
+        | "energy_flow_from_enthalpies_w"
+        | "energy_flow"
+        | "drum_level_from_densities"
+        | "drum_level"
+        | "throttling_calorimeter_dryness"
+        | "separating_throttling_dryness" => check_application(function, a, b, selector),
         other => Err(format!("unknown kernel function {other}")),
     }
 }
+
+// ---- application routines block (issue 5, branch apps): the physical-range
+// checks of crate::flowing, energy, drum_level and calorimeter.
+use vapora_kernel::calorimeter::{
+    separating_throttling_dryness, throttling_calorimeter_dryness, ThrottlingCalorimeterReading,
+};
+use vapora_kernel::drum_level::{
+    drum_level, drum_level_from_densities, DrumLevel, DrumLevelTransmitter, LevelSpan,
+    STANDARD_GRAVITY_M_S2,
+};
+use vapora_kernel::energy::{energy_flow, energy_flow_from_enthalpies_w, EnergyFlow, SteamSupply};
+use vapora_kernel::flowing::{
+    steam_flowing_conditions, water_flowing_conditions, FlowingConditions,
+};
+
+/// Selectors of the application routines: which of the fixed settings
+/// (alarm threshold, transmitter, calorimeter, water state) go with `a`, `b`.
+pub const APPLICATION_SELECTORS: u32 = 4;
+
+/// Highest single-phase enthalpy accepted, J/kg: h of steam at 1073.15 K
+/// and low pressure is about 4.16 MJ/kg (IF97 Region 2, from memory),
+/// rounded up.
+pub const APPLICATION_ENTHALPY_MAX_J_KG: f32 = 4.2e6;
+/// Lowest viscosity accepted, Pa·s: vapour at the triple point is about
+/// 9 µPa·s (R12-08, from memory), rounded down.
+pub const APPLICATION_VISCOSITY_MIN_PA_S: f32 = 1.0e-6;
+/// Highest viscosity accepted, Pa·s: liquid at 273.16 K is about
+/// 1.79 mPa·s (R12-08, from memory), rounded up.
+pub const APPLICATION_VISCOSITY_MAX_PA_S: f32 = 2.0e-3;
+
+/// Alarm thresholds tried, K (the last ones invalid).
+const ALARM_THRESHOLDS_K: [f32; 4] = [5.0, 0.0, f32::NAN, -1.0];
+
+/// Transmitters tried: a plausible one, a zero mark at the lower tap, a
+/// tiny tap separation, and an invalid one (zero mark above the upper tap).
+fn transmitter(selector: u32) -> DrumLevelTransmitter {
+    let (h, z, g, p_min) = match selector % 4 {
+        0 => (0.6, 0.3, STANDARD_GRAVITY_M_S2, 2.0e5),
+        1 => (1.2, 0.0, 9.78, 0.0),
+        2 => (1e-3, 5e-4, 9.83, PRESSURE_MIN_PA),
+        _ => (0.6, 0.7, STANDARD_GRAVITY_M_S2, 1.0e5),
+    };
+    DrumLevelTransmitter {
+        tap_separation_m: h,
+        zero_level_above_lower_tap_m: z,
+        gravity_m_s2: g,
+        minimum_drum_pressure: AbsolutePressure::from_pa(p_min)
+            .unwrap_or(AbsolutePressure::STANDARD_ATMOSPHERE),
+    }
+}
+
+fn check_flowing(c: &FlowingConditions, threshold_k: f32) -> Result<(), Violation> {
+    check_density("flowing density", c.density_kg_m3)?;
+    in_range(
+        "flowing enthalpy",
+        c.enthalpy_j_kg,
+        ENTHALPY_MIN_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
+    )?;
+    in_range(
+        "isentropic exponent",
+        c.isentropic_exponent,
+        f32::MIN_POSITIVE,
+        f32::MAX,
+    )?;
+    in_range(
+        "viscosity",
+        c.viscosity_pa_s,
+        APPLICATION_VISCOSITY_MIN_PA_S,
+        APPLICATION_VISCOSITY_MAX_PA_S,
+    )?;
+    match c.saturation_margin_k {
+        Some(m) => {
+            in_range("saturation margin", m, f32::MIN_POSITIVE, f32::MAX)?;
+            if c.margin_alarm != (m < threshold_k) {
+                return Err(format!(
+                    "margin {m} K against threshold {threshold_k} K gave alarm {}",
+                    c.margin_alarm
+                ));
+            }
+        }
+        None if c.margin_alarm => return Err("alarm raised without a margin".into()),
+        None => {}
+    }
+    Ok(())
+}
+
+fn check_energy(e: &EnergyFlow) -> Result<(), Violation> {
+    in_range(
+        "steam enthalpy",
+        e.steam_enthalpy_j_kg,
+        ENTHALPY_MIN_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
+    )?;
+    in_range(
+        "water enthalpy",
+        e.water_enthalpy_j_kg,
+        ENTHALPY_MIN_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
+    )?;
+    check_energy_product(
+        e.energy_flow_w,
+        e.mass_flow_kg_s,
+        e.steam_enthalpy_j_kg,
+        e.water_enthalpy_j_kg,
+    )
+}
+
+/// Φ finite and equal to q_m·(h_s − h_w) to f32 rounding.
+fn check_energy_product(phi: f32, m: f32, hs: f32, hw: f32) -> Result<(), Violation> {
+    finite("energy flow (W)", phi)?;
+    let expected = f64::from(m) * (f64::from(hs) - f64::from(hw));
+    let slack =
+        4.0 * f64::from(f32::EPSILON) * f64::from(m) * (f64::from(hs).abs() + f64::from(hw).abs())
+            + f64::from(f32::from_bits(1));
+    if (f64::from(phi) - expected).abs() <= slack {
+        Ok(())
+    } else {
+        Err(format!("energy flow {phi:e} W, q_m·Δh = {expected:e} W"))
+    }
+}
+
+fn check_level(l: &DrumLevel, t: &DrumLevelTransmitter) -> Result<(), Violation> {
+    finite("level (m)", l.level_m)?;
+    finite("water height (m)", l.water_height_above_lower_tap_m)?;
+    let hw = l.water_height_above_lower_tap_m;
+    let span = if hw < 0.0 {
+        LevelSpan::BelowLowerTap
+    } else if hw > t.tap_separation_m {
+        LevelSpan::AboveUpperTap
+    } else {
+        LevelSpan::WithinTaps
+    };
+    if span != l.span {
+        return Err(format!("water height {hw} m reported as {:?}", l.span));
+    }
+    let difference = hw - t.zero_level_above_lower_tap_m;
+    if (l.level_m - difference).abs() > 4.0 * f32::EPSILON * (hw.abs() + t.tap_separation_m) {
+        return Err(format!(
+            "level {} m is not h_w − Z = {difference} m",
+            l.level_m
+        ));
+    }
+    if l.liquid_density_kg_m3 > l.vapour_density_kg_m3 {
+        Ok(())
+    } else {
+        Err(format!(
+            "liquid {} kg/m³ not denser than vapour {} kg/m³",
+            l.liquid_density_kg_m3, l.vapour_density_kg_m3
+        ))
+    }
+}
+
+fn check_calorimeter(r: &ThrottlingCalorimeterReading) -> Result<(), Violation> {
+    in_range("calorimeter dryness fraction", r.dryness_fraction, 0.0, 1.0)?;
+    in_range(
+        "calorimeter superheat (K)",
+        r.calorimeter_superheat_k,
+        f32::MIN_POSITIVE,
+        f32::MAX,
+    )?;
+    in_range(
+        "line enthalpy",
+        r.line_enthalpy_j_kg,
+        ENTHALPY_MIN_J_KG,
+        APPLICATION_ENTHALPY_MAX_J_KG,
+    )?;
+    if r.line_steam_dry && r.dryness_fraction != 1.0 {
+        return Err(format!("dry line steam with x = {}", r.dryness_fraction));
+    }
+    Ok(())
+}
+
+/// The application routines on raw inputs: what `a` and `b` are is
+/// written beside each function; the selector picks the other settings.
+fn check_application(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violation> {
+    let threshold = ALARM_THRESHOLDS_K[selector as usize % ALARM_THRESHOLDS_K.len()];
+    match function {
+        // a = line pressure (Pa), b = line temperature (K).
+        "steam_flowing_conditions" | "water_flowing_conditions" => {
+            let (Ok(p), Ok(t)) = (AbsolutePressure::from_pa(a), Temperature::from_kelvin(b)) else {
+                return Ok(());
+            };
+            let r = if function == "steam_flowing_conditions" {
+                steam_flowing_conditions(p, t, threshold)
+            } else {
+                water_flowing_conditions(p, t, threshold)
+            };
+            result(r, |c| check_flowing(&c, threshold))
+        }
+        // a = mass flow (kg/s), b = steam enthalpy (J/kg); the water
+        // enthalpy from the selector.
+        "energy_flow_from_enthalpies_w" => {
+            let hw = [419.1e3, 0.0, -1.0e30, f32::NAN][selector as usize % 4];
+            result(energy_flow_from_enthalpies_w(a, b, hw), |phi| {
+                check_energy_product(phi, a, b, hw)
+            })
+        }
+        // a = steam pressure (Pa), b = steam temperature (K) for even
+        // selectors or dryness fraction for odd ones; 1.39 kg/s, water at
+        // 3 bar(a) and 85 °C, or at the steam's pressure and 45 °C.
+        "energy_flow" => {
+            let Ok(p) = AbsolutePressure::from_pa(a) else {
+                return Ok(());
+            };
+            let steam = if selector % 2 == 0 {
+                let Ok(t) = Temperature::from_kelvin(b) else {
+                    return Ok(());
+                };
+                SteamSupply::Superheated {
+                    pressure: p,
+                    temperature: t,
+                }
+            } else {
+                SteamSupply::Wet {
+                    pressure: p,
+                    dryness_fraction: b,
+                }
+            };
+            let (water_p, water_t) = if selector % 4 < 2 {
+                (
+                    AbsolutePressure::from_pa(3.0e5),
+                    Temperature::from_celsius(85.0),
+                )
+            } else {
+                (Ok(p), Temperature::from_celsius(45.0))
+            };
+            let (Ok(water_p), Ok(water_t)) = (water_p, water_t) else {
+                return Err("fixed water state rejected".into());
+            };
+            result(energy_flow(1.39, steam, water_p, water_t), |e| {
+                check_energy(&e)
+            })
+        }
+        // a = DP (Pa), b = reference-leg density (kg/m³); ρ' and ρ'' of a
+        // drum at 1.15 MPa, or of cold water with a trace of vapour.
+        "drum_level_from_densities" => {
+            let t = transmitter(selector);
+            let (rho_l, rho_v) = if selector % 2 == 0 {
+                (880.4, 5.887)
+            } else {
+                (1000.0, 1e-3)
+            };
+            result(drum_level_from_densities(a, &t, rho_l, rho_v, b), |l| {
+                check_level(&l, &t)
+            })
+        }
+        // a = drum pressure (Pa), b = DP (Pa); leg at 45 °C, 5 °C, 300 °C
+        // or 0.01 °C by selector.
+        "drum_level" => {
+            let Ok(p) = AbsolutePressure::from_pa(a) else {
+                return Ok(());
+            };
+            let t = transmitter(selector);
+            let leg_c = [45.0, 5.0, 300.0, 0.01][selector as usize % 4];
+            let Ok(leg) = Temperature::from_celsius(leg_c) else {
+                return Err("fixed leg temperature rejected".into());
+            };
+            result(drum_level(p, b, leg, &t), |l| {
+                check_density("drum liquid density", l.liquid_density_kg_m3)?;
+                check_density("drum vapour density", l.vapour_density_kg_m3)?;
+                check_density("reference leg density", l.reference_leg_density_kg_m3)?;
+                check_level(&l, &t)
+            })
+        }
+        // a = calorimeter pressure (Pa), b = calorimeter temperature (K);
+        // line at 1.151 325 MPa, 20 MPa, 0.2 MPa or 700 Pa by selector.
+        "throttling_calorimeter_dryness" => {
+            let line_pa = [1_151_325.0, 20.0e6, 2.0e5, 700.0][selector as usize % 4];
+            let (Ok(p_cal), Ok(t_cal), Ok(line)) = (
+                AbsolutePressure::from_pa(a),
+                Temperature::from_kelvin(b),
+                AbsolutePressure::from_pa(line_pa),
+            ) else {
+                return Ok(());
+            };
+            result(throttling_calorimeter_dryness(line, p_cal, t_cal), |r| {
+                check_calorimeter(&r)
+            })
+        }
+        // a = separated water (kg), b = condensed steam (kg); the
+        // throttling stage from the selector.
+        "separating_throttling_dryness" => {
+            let (line_pa, cal_pa, cal_c) = [
+                (1_151_325.0, 101_325.0, 112.0),
+                (1_151_325.0, 101_325.0, 99.0),
+                (20.0e6, 101_325.0, 400.0),
+                (2.0e5, 1.5e5, 150.0),
+            ][selector as usize % 4];
+            let (Ok(line), Ok(p_cal), Ok(t_cal)) = (
+                AbsolutePressure::from_pa(line_pa),
+                AbsolutePressure::from_pa(cal_pa),
+                Temperature::from_celsius(cal_c),
+            ) else {
+                return Err("fixed calorimeter state rejected".into());
+            };
+            result(
+                separating_throttling_dryness(line, p_cal, t_cal, a, b),
+                |r| {
+                    check_calorimeter(&r.throttling)?;
+                    in_range(
+                        "separator dryness fraction",
+                        r.separator_dryness_fraction,
+                        f32::MIN_POSITIVE * 0.0,
+                        1.0,
+                    )?;
+                    in_range("combined dryness fraction", r.dryness_fraction, 0.0, 1.0)?;
+                    let product = r.separator_dryness_fraction * r.throttling.dryness_fraction;
+                    if r.dryness_fraction == product {
+                        Ok(())
+                    } else {
+                        Err(format!(
+                            "x = {} is not x_s·x_t = {product}",
+                            r.dryness_fraction
+                        ))
+                    }
+                },
+            )
+        }
+        other => Err(format!("unknown kernel function {other}")),
+    }
+}
+// ---- end of the application routines block

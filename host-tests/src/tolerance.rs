@@ -10,6 +10,53 @@ pub fn relative_deviation(value: f64, expected: f64) -> f64 {
     ((value - expected) / expected).abs()
 }
 
+// ---- application routines (issue 5, branch apps): the tolerances of
+// host-tests/tests/application_*.rs. They are derived from the accuracy the
+// kernel must meet, not from what the current implementation reaches, so
+// the table-based single-phase module passes them as well as any stand-in.
+
+/// Density of the single-phase module, relative: the bound issue 5 sets
+/// for it outside the near-critical box.
+pub const SINGLE_PHASE_DENSITY_REL: f64 = 20e-6;
+/// Enthalpy of the single-phase module, J/kg (issue 5: 0.02 kJ/kg).
+pub const SINGLE_PHASE_ENTHALPY_J_KG: f64 = 20.0;
+/// Isentropic exponent of the single-phase module, relative (issue 5: 0.05 %).
+pub const SINGLE_PHASE_KAPPA_REL: f64 = 5e-4;
+/// Viscosity of the single-phase module, relative (issue 5: 0.05 %).
+pub const SINGLE_PHASE_VISCOSITY_REL: f64 = 5e-4;
+/// A superheat or subcooling margin T − T_sat(p), K: the kernel's
+/// saturation temperature is within 1 mK of IF97 (its accuracy table),
+/// doubled for a single-phase module that may compute T_sat its own way,
+/// plus the f32 rounding of T (3e-5 K at 1000 K).
+pub const SATURATION_MARGIN_K: f64 = 2e-3;
+/// f32 rounding of a result computed in a few f32 operations, relative:
+/// eight units in the last place (2⁻²³ ≈ 1.2e-7 each).
+pub const F32_ROUNDING_REL: f64 = 8.0 * f32::EPSILON as f64;
+
+/// Largest change of `f` when each input `x[i]` moves by ±`dx[i]` (all
+/// sign combinations, the worst case of a first-order error budget and of
+/// any curvature between the corners): the tolerance of a derived quantity
+/// whose inputs have the error bounds `dx`.
+pub fn worst_corner_deviation(f: impl Fn(&[f64]) -> f64, x: &[f64], dx: &[f64]) -> f64 {
+    let nominal = f(x);
+    let n = x.len().min(dx.len());
+    let mut worst: f64 = 0.0;
+    for corner in 0u32..(1 << n) {
+        let moved: Vec<f64> = (0..n)
+            .map(|i| {
+                if corner & (1 << i) == 0 {
+                    x[i] - dx[i]
+                } else {
+                    x[i] + dx[i]
+                }
+            })
+            .collect();
+        worst = worst.max((f(&moved) - nominal).abs());
+    }
+    worst
+}
+// ---- end of the application routines' tolerances
+
 /// True when `value` agrees with a value printed to `digits` significant
 /// digits in every printed digit: |value − printed| ≤ half a unit of the last
 /// printed digit (a hair of slack for the decimal-to-binary conversion).

@@ -45,6 +45,240 @@ impl fmt::Display for UnitError {
 
 impl core::error::Error for UnitError {}
 
+// ---- application routines (issue 5, branch apps): the one error of
+// crate::flowing, crate::energy, crate::drum_level and crate::calorimeter.
+
+/// An application routine could not give a result ([`crate::flowing`],
+/// [`crate::energy`], [`crate::drum_level`], [`crate::calorimeter`]). Each
+/// function names the variants it returns.
+#[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(feature = "defmt", derive(defmt::Format))]
+#[non_exhaustive]
+pub enum ApplicationError {
+    /// The single-phase state could not be computed (outside the envelope
+    /// of [`crate::single_phase`], for example).
+    SinglePhase(crate::single_phase::SinglePhaseError),
+    /// The saturation line could not be used (pressure outside its tables).
+    Saturation(SaturationError),
+    /// The wet-steam mixture could not be computed.
+    Mixture(MixtureError),
+    /// Steam that must be superheated is at or below saturation (wet side):
+    /// no single-phase vapour property is extrapolated there.
+    SteamNotSuperheated {
+        /// Superheat margin T − T_sat(p), K (≤ 0).
+        superheat_margin_k: f32,
+    },
+    /// Water that must be subcooled is at or above saturation (it would
+    /// flash): no liquid property is extrapolated there.
+    WaterNotSubcooled {
+        /// Subcooling margin T_sat(p) − T, K (≤ 0).
+        subcooling_margin_k: f32,
+    },
+    /// An alarm threshold is NaN, infinite or negative.
+    InvalidAlarmThreshold {
+        /// The threshold given, K.
+        threshold_k: f32,
+    },
+    /// A mass flow is NaN, infinite or negative, or so large that the
+    /// energy flow overflows f32.
+    InvalidMassFlow {
+        /// The mass flow given, kg/s.
+        mass_flow_kg_s: f32,
+    },
+    /// A specific enthalpy given is NaN or infinite.
+    EnthalpyNotFinite {
+        /// The value given, J/kg.
+        enthalpy_j_kg: f32,
+    },
+    /// A drum-level transmitter setting is invalid: tap separation not
+    /// positive and finite, zero mark outside the taps, or gravity not
+    /// positive and finite.
+    InvalidTransmitterGeometry {
+        /// Vertical distance between the taps given, m.
+        tap_separation_m: f32,
+        /// Zero mark above the lower tap given, m.
+        zero_level_above_lower_tap_m: f32,
+        /// Acceleration of gravity given, m/s².
+        gravity_m_s2: f32,
+    },
+    /// The differential-pressure reading is NaN or infinite.
+    DifferentialPressureNotFinite {
+        /// The reading given, Pa.
+        differential_pressure_pa: f32,
+    },
+    /// Drum pressure below the transmitter's configured minimum for
+    /// compensation (cold start-up: the drum is not at saturation and the
+    /// condensate pot is not yet filling the reference leg).
+    DrumPressureBelowStartUp {
+        /// Drum pressure given, Pa (absolute).
+        pressure_pa: f32,
+        /// The configured minimum, Pa (absolute).
+        minimum_pa: f32,
+    },
+    /// The reference leg is at or above the saturation temperature at drum
+    /// pressure: it would not hold liquid.
+    ReferenceLegNotSubcooled {
+        /// Subcooling margin T_sat(p) − T_leg, K (≤ 0).
+        subcooling_margin_k: f32,
+    },
+    /// The densities give no level: not positive and finite, the liquid
+    /// not denser than the vapour (at or next to the critical point), or a
+    /// level that overflows f32.
+    NoDensityDifference {
+        /// Liquid density used, kg/m³.
+        liquid_density_kg_m3: f32,
+        /// Vapour density used, kg/m³.
+        vapour_density_kg_m3: f32,
+        /// Reference-leg density used, kg/m³.
+        reference_leg_density_kg_m3: f32,
+    },
+    /// The throttling calorimeter's outlet is not superheated: the method
+    /// does not apply (the line steam is too wet for it).
+    CalorimeterNotSuperheated {
+        /// Superheat margin T_cal − T_sat(p_cal), K (≤ 0).
+        superheat_margin_k: f32,
+    },
+    /// The calorimeter pressure is not below the line pressure (nothing is
+    /// throttled).
+    CalorimeterPressureNotBelowLine {
+        /// Calorimeter pressure, Pa (absolute).
+        calorimeter_pressure_pa: f32,
+        /// Line pressure, Pa (absolute).
+        line_pressure_pa: f32,
+    },
+    /// A collected mass of the separating calorimeter is NaN, infinite or
+    /// negative, or the condensed steam mass is zero.
+    InvalidSampleMass {
+        /// Water collected by the separator, kg.
+        separated_water_kg: f32,
+        /// Steam condensed after the throttling calorimeter, kg.
+        condensed_steam_kg: f32,
+    },
+}
+
+impl From<crate::single_phase::SinglePhaseError> for ApplicationError {
+    fn from(e: crate::single_phase::SinglePhaseError) -> Self {
+        Self::SinglePhase(e)
+    }
+}
+
+impl From<SaturationError> for ApplicationError {
+    fn from(e: SaturationError) -> Self {
+        Self::Saturation(e)
+    }
+}
+
+impl From<MixtureError> for ApplicationError {
+    fn from(e: MixtureError) -> Self {
+        Self::Mixture(e)
+    }
+}
+
+impl fmt::Display for ApplicationError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match *self {
+            Self::SinglePhase(e) => e.fmt(f),
+            Self::Saturation(e) => e.fmt(f),
+            Self::Mixture(e) => e.fmt(f),
+            Self::SteamNotSuperheated { superheat_margin_k } => write!(
+                f,
+                "steam is not superheated (superheat margin {superheat_margin_k} K)"
+            ),
+            Self::WaterNotSubcooled {
+                subcooling_margin_k,
+            } => write!(
+                f,
+                "water is not subcooled (subcooling margin {subcooling_margin_k} K)"
+            ),
+            Self::InvalidAlarmThreshold { threshold_k } => write!(
+                f,
+                "alarm threshold {threshold_k} K is not a finite number of at least 0 K"
+            ),
+            Self::InvalidMassFlow { mass_flow_kg_s } => write!(
+                f,
+                "mass flow {mass_flow_kg_s} kg/s is not a usable finite number of at least 0 kg/s"
+            ),
+            Self::EnthalpyNotFinite { enthalpy_j_kg } => {
+                write!(
+                    f,
+                    "specific enthalpy {enthalpy_j_kg} J/kg is not a finite number"
+                )
+            }
+            Self::InvalidTransmitterGeometry {
+                tap_separation_m,
+                zero_level_above_lower_tap_m,
+                gravity_m_s2,
+            } => write!(
+                f,
+                "invalid level transmitter: taps {tap_separation_m} m apart, zero mark \
+                 {zero_level_above_lower_tap_m} m above the lower tap, gravity {gravity_m_s2} m/s2"
+            ),
+            Self::DifferentialPressureNotFinite {
+                differential_pressure_pa,
+            } => write!(
+                f,
+                "differential pressure {differential_pressure_pa} Pa is not a finite number"
+            ),
+            Self::DrumPressureBelowStartUp {
+                pressure_pa,
+                minimum_pa,
+            } => write!(
+                f,
+                "drum pressure {pressure_pa} Pa is below the start-up minimum {minimum_pa} Pa: \
+                 level not compensated"
+            ),
+            Self::ReferenceLegNotSubcooled {
+                subcooling_margin_k,
+            } => write!(
+                f,
+                "reference leg is not subcooled (subcooling margin {subcooling_margin_k} K)"
+            ),
+            Self::NoDensityDifference {
+                liquid_density_kg_m3,
+                vapour_density_kg_m3,
+                reference_leg_density_kg_m3,
+            } => write!(
+                f,
+                "no level from densities: liquid {liquid_density_kg_m3} kg/m3, vapour \
+                 {vapour_density_kg_m3} kg/m3, reference leg {reference_leg_density_kg_m3} kg/m3"
+            ),
+            Self::CalorimeterNotSuperheated { superheat_margin_k } => write!(
+                f,
+                "calorimeter outlet is not superheated (superheat margin {superheat_margin_k} K): \
+                 the throttling method does not apply"
+            ),
+            Self::CalorimeterPressureNotBelowLine {
+                calorimeter_pressure_pa,
+                line_pressure_pa,
+            } => write!(
+                f,
+                "calorimeter pressure {calorimeter_pressure_pa} Pa is not below the line \
+                 pressure {line_pressure_pa} Pa"
+            ),
+            Self::InvalidSampleMass {
+                separated_water_kg,
+                condensed_steam_kg,
+            } => write!(
+                f,
+                "invalid calorimeter sample: separated water {separated_water_kg} kg, condensed \
+                 steam {condensed_steam_kg} kg"
+            ),
+        }
+    }
+}
+
+impl core::error::Error for ApplicationError {
+    fn source(&self) -> Option<&(dyn core::error::Error + 'static)> {
+        match self {
+            Self::SinglePhase(e) => Some(e),
+            Self::Saturation(e) => Some(e),
+            Self::Mixture(e) => Some(e),
+            _ => None,
+        }
+    }
+}
+// ---- end of the application routines' error
+
 /// A point is outside the saturation line the tables cover
 /// ([`crate::saturation`]). With the default tables the line runs from the
 /// triple point (273.16 K, 611.657 Pa) to the critical point (647.096 K,

@@ -4,7 +4,12 @@
 #![deny(missing_docs)]
 
 pub mod accuracy;
+// Application routines (issue 5, branch apps).
+pub mod calorimeter;
+pub mod drum_level;
+pub mod energy;
 pub mod error;
+pub mod flowing;
 pub mod integrity;
 pub mod mixture;
 pub mod quality;

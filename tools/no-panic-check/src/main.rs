@@ -295,6 +295,112 @@ fn integrity() {
     sink_bits(SheetData::of_sheet(&sp_table::LIQUID_HIGH.y_of_entropy).checksum());
 }
 
+
+// ---- application routines block (issue 5, branch apps).
+fn applications() {
+    use vapora_kernel::calorimeter::{
+        separating_throttling_dryness, throttling_calorimeter_dryness,
+    };
+    use vapora_kernel::drum_level::{drum_level, drum_level_from_densities, DrumLevelTransmitter};
+    use vapora_kernel::energy::{energy_flow, energy_flow_from_enthalpies_w, SteamSupply};
+    use vapora_kernel::flowing::{steam_flowing_conditions, water_flowing_conditions};
+
+    fn sink_flowing(c: vapora_kernel::flowing::FlowingConditions) {
+        sink(c.density_kg_m3);
+        sink(c.enthalpy_j_kg);
+        sink(c.isentropic_exponent);
+        sink(c.viscosity_pa_s);
+        sink(c.saturation_margin_k.unwrap_or(-1.0));
+        sink_bits(u32::from(c.margin_alarm));
+    }
+    fn sink_level(l: vapora_kernel::drum_level::DrumLevel) {
+        sink(l.level_m);
+        sink(l.water_height_above_lower_tap_m);
+        sink_bits(match l.span {
+            vapora_kernel::drum_level::LevelSpan::WithinTaps => 0,
+            vapora_kernel::drum_level::LevelSpan::AboveUpperTap => 1,
+            _ => 2,
+        });
+        sink(l.reference_leg_density_kg_m3);
+    }
+    fn sink_calorimeter(r: vapora_kernel::calorimeter::ThrottlingCalorimeterReading) {
+        sink(r.dryness_fraction);
+        sink(r.line_enthalpy_j_kg);
+        sink(r.calorimeter_superheat_k);
+        sink_bits(u32::from(r.line_steam_dry));
+    }
+    if let (Ok(p), Ok(t)) = (
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+    ) {
+        sink_result(steam_flowing_conditions(p, t, input()), sink_flowing);
+        sink_result(water_flowing_conditions(p, t, input()), sink_flowing);
+    }
+    sink_result(
+        energy_flow_from_enthalpies_w(input(), input(), input()),
+        sink,
+    );
+    if let (Ok(p), Ok(t), Ok(water_p), Ok(water_t)) = (
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+    ) {
+        let steam = if input_bits() % 2 == 0 {
+            SteamSupply::Superheated {
+                pressure: p,
+                temperature: t,
+            }
+        } else {
+            SteamSupply::Wet {
+                pressure: p,
+                dryness_fraction: input(),
+            }
+        };
+        sink_result(energy_flow(input(), steam, water_p, water_t), |e| {
+            sink(e.energy_flow_w);
+            sink(e.steam_enthalpy_j_kg);
+            sink(e.water_enthalpy_j_kg);
+        });
+    }
+    if let (Ok(minimum), Ok(p), Ok(leg)) = (
+        AbsolutePressure::from_pa(input()),
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+    ) {
+        let transmitter = DrumLevelTransmitter {
+            tap_separation_m: input(),
+            zero_level_above_lower_tap_m: input(),
+            gravity_m_s2: input(),
+            minimum_drum_pressure: minimum,
+        };
+        sink_result(drum_level(p, input(), leg, &transmitter), sink_level);
+        sink_result(
+            drum_level_from_densities(input(), &transmitter, input(), input(), input()),
+            sink_level,
+        );
+    }
+    if let (Ok(line), Ok(p_cal), Ok(t_cal)) = (
+        AbsolutePressure::from_pa(input()),
+        AbsolutePressure::from_pa(input()),
+        Temperature::from_kelvin(input()),
+    ) {
+        sink_result(
+            throttling_calorimeter_dryness(line, p_cal, t_cal),
+            sink_calorimeter,
+        );
+        sink_result(
+            separating_throttling_dryness(line, p_cal, t_cal, input(), input()),
+            |r| {
+                sink(r.dryness_fraction);
+                sink(r.separator_dryness_fraction);
+                sink_calorimeter(r.throttling);
+            },
+        );
+    }
+}
+// ---- end of the application routines block
+
 /// The self-check: one indexing the optimiser cannot prove in bounds. With
 /// this feature the link must fail, which shows the proof can fail.
 #[cfg(feature = "deliberate-panic")]
@@ -315,6 +421,7 @@ pub extern "C" fn _start() -> ! {
         single_phase();
         spline();
         integrity();
+        applications(); // application routines (branch apps)
         deliberate_panic();
     }
 }
