@@ -22,6 +22,10 @@ use vapora_kernel::quality::{
 use vapora_kernel::saturation::{
     saturated_state_at_pressure, saturated_state_at_temperature, saturation_temperature,
 };
+use vapora_kernel::single_phase::{
+    state_at_pressure_enthalpy, state_at_pressure_entropy, state_at_pressure_temperature,
+    FluidState, SinglePhaseError,
+};
 use vapora_kernel::units::{AbsolutePressure, Temperature};
 use vapora_tables::if97::{
     inverse, pt, region4, saturation, viscosity, Properties, CRITICAL_PRESSURE_PA,
@@ -60,9 +64,6 @@ pub const SATURATION_INPUTS: [&str; 2] = ["p_pa", "t_k"];
 
 /// Input columns of `state` mode: `p_pa` and one of the others per row.
 pub const STATE_INPUTS: [&str; 5] = ["p_pa", "t_k", "h_j_kg", "s_j_kgk", "x"];
-
-/// The note put in `error` where the kernel cannot give single-phase values.
-pub const SINGLE_PHASE_NOTE: &str = "single-phase properties not yet in the kernel";
 
 /// Which calculation answers the rows.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
@@ -343,16 +344,17 @@ fn state_kernel(row: &mut Row, p_pa: f64, second: Second) -> RowResult {
                 };
                 row.set("phase", phase.into());
             }
-            row.note(SINGLE_PHASE_NOTE);
+            let state = state_at_pressure_temperature(p, t).map_err(text)?;
+            kernel_fluid(row, &state);
             Ok(())
         }
         Second::Enthalpy(h) => {
             let phase = phase_from_pressure_enthalpy(p, h as f32).map_err(text)?;
-            kernel_phase(row, p, &phase)
+            kernel_phase(row, p, &phase, || state_at_pressure_enthalpy(p, h as f32))
         }
         Second::Entropy(s) => {
             let phase = phase_from_pressure_entropy(p, s as f32).map_err(text)?;
-            kernel_phase(row, p, &phase)
+            kernel_phase(row, p, &phase, || state_at_pressure_entropy(p, s as f32))
         }
         Second::DrynessFraction(x) => {
             if above_critical {
@@ -375,11 +377,19 @@ fn state_kernel(row: &mut Row, p_pa: f64, second: Second) -> RowResult {
     }
 }
 
-/// Fills a (p, h) or (p, s) row from the kernel's phase.
-fn kernel_phase(row: &mut Row, p: AbsolutePressure, phase: &Phase) -> RowResult {
+/// Fills a (p, h) or (p, s) row from the kernel's phase: the saturation
+/// calls in the dome (so the saturated band names the phase as the
+/// reference model does), the single-phase call `single` outside it.
+fn kernel_phase(
+    row: &mut Row,
+    p: AbsolutePressure,
+    phase: &Phase,
+    single: impl FnOnce() -> Result<FluidState, SinglePhaseError>,
+) -> RowResult {
     row.set("phase", phase_name(phase).into());
     let Some(x) = phase.dryness_fraction() else {
-        row.note(SINGLE_PHASE_NOTE);
+        let state = single().map_err(text)?;
+        kernel_fluid(row, &state);
         return Ok(());
     };
     let w = wet_steam_at_pressure(p, x).map_err(text)?;
@@ -412,6 +422,39 @@ fn kernel_wet(
         row.f32("cp_j_kgk", phase_properties.cp_j_kgk);
     }
     Ok(())
+}
+
+/// Fills the columns of a kernel single-phase result. The given h or s
+/// stays as given; a state the single-phase call put in the dome (within
+/// f32 rounding of the saturation band) fills the mixture columns.
+fn kernel_fluid(row: &mut Row, state: &FluidState) {
+    match state {
+        FluidState::CompressedLiquid(s) | FluidState::SuperheatedVapour(s) => {
+            row.f32("t_k", s.temperature.as_kelvin());
+            row.f32("rho_kg_m3", s.density_kg_m3);
+            if row.is_empty("h_j_kg") {
+                row.f32("h_j_kg", s.enthalpy_j_kg);
+            }
+            if row.is_empty("s_j_kgk") {
+                row.f32("s_j_kgk", s.entropy_j_kgk);
+            }
+            row.f32("cp_j_kgk", s.cp_j_kgk);
+            row.f32("kappa", s.isentropic_exponent);
+            row.f32("viscosity_pa_s", s.viscosity_pa_s);
+        }
+        FluidState::WetSteam(w) => {
+            row.f32("t_k", w.temperature.as_kelvin());
+            row.f32("x", w.dryness_fraction);
+            row.f32("rho_kg_m3", w.density_kg_m3);
+            if row.is_empty("h_j_kg") {
+                row.f32("h_j_kg", w.enthalpy_j_kg);
+            }
+            if row.is_empty("s_j_kgk") {
+                row.f32("s_j_kgk", w.entropy_j_kgk);
+            }
+        }
+        other => row.note(format!("unexpected kernel state {other:?}")),
+    }
 }
 
 /// Half-width of the saturated band in x, the kernel's, so both models name

@@ -35,7 +35,7 @@ pub struct Shown {
 }
 
 /// The maps drawn.
-pub const SHOWN: [Shown; 6] = [
+pub const SHOWN: [Shown; 9] = [
     Shown {
         stem: "density",
         label: "density ρ, relative",
@@ -61,6 +61,18 @@ pub const SHOWN: [Shown; 6] = [
         bound: REQUIRED_FAR.cp_relative,
     },
     Shown {
+        stem: "speed-of-sound",
+        label: "speed of sound w, relative",
+        index: 4,
+        bound: REQUIRED_FAR.speed_of_sound_relative,
+    },
+    Shown {
+        stem: "isentropic-exponent",
+        label: "isentropic exponent κ, relative",
+        index: 5,
+        bound: REQUIRED_FAR.isentropic_exponent_relative,
+    },
+    Shown {
         stem: "viscosity",
         label: "viscosity μ, relative",
         index: 6,
@@ -71,6 +83,12 @@ pub const SHOWN: [Shown; 6] = [
         label: "T from (p, h), K",
         index: 7,
         bound: REQUIRED_FAR.temperature_from_enthalpy_k,
+    },
+    Shown {
+        stem: "temperature-from-entropy",
+        label: "T from (p, s), K",
+        index: 8,
+        bound: REQUIRED_FAR.temperature_from_entropy_k,
     },
 ];
 
@@ -159,7 +177,7 @@ pub fn map_svg(shown: &Shown, cells: &[[f64; 9]]) -> Result<String, Box<dyn Erro
             .disable_mesh()
             .x_desc("pressure (Pa), log scale")
             .y_desc("temperature (K)")
-            .x_label_formatter(&|x| format!("1e{x:.0}"))
+            .x_label_formatter(&|x| format!("{:.1e}", 10f64.powf(*x)))
             .y_label_formatter(&|t| format!("{t:.0}"))
             .draw()?;
         let dx = (lp.1 - lp.0) / np as f64;
