@@ -373,9 +373,16 @@ struct Geometry {
 }
 
 impl Geometry {
+    #[inline]
     fn new(sheet: Sheet, p_pa: f32, edge_k: f32) -> Self {
+        Self::at_x(sheet, p_pa, edge_k, x_of(sheet, p_pa))
+    }
+
+    /// As [`Self::new`] with the sheet's x coordinate of `p_pa` already
+    /// computed.
+    #[inline(always)]
+    fn at_x(sheet: Sheet, p_pa: f32, edge_k: f32, x: f32) -> Self {
         let data = sheet.data();
-        let x = x_of(sheet, p_pa);
         let (t0, t1) = match sheet {
             Sheet::VapourLow => (edge_k, TEMPERATURE_MAX_K),
             Sheet::LiquidLow => (edge_k, TEMPERATURE_MIN_K),
@@ -741,17 +748,20 @@ fn envelope_error(p_pa: f32, given: Given) -> SinglePhaseError {
 }
 
 /// The state on `sheet` with the given property, through the inverse sheet.
-/// `edges`: the given property on the sheet's edges at p, if the caller
-/// has it already.
+/// `known`: the sheet's x of p and the given property on the sheet's edges
+/// there, if the caller has them already.
 fn state_from_given(
     sheet: Sheet,
     p_pa: f32,
     edge_k: f32,
     saturated: bool,
     given: Given,
-    edges: Option<(f32, f32)>,
+    known: Option<(f32, (f32, f32))>,
 ) -> Result<SinglePhaseState, SinglePhaseError> {
-    let g = Geometry::new(sheet, p_pa, edge_k);
+    let (g, edges) = match known {
+        Some((x, edges)) => (Geometry::at_x(sheet, p_pa, edge_k, x), Some(edges)),
+        None => (Geometry::new(sheet, p_pa, edge_k), None),
+    };
     let column = given.column();
     let (at0, at1) = match edges {
         Some(e) => e,
@@ -841,8 +851,9 @@ fn state_across_phases(
     } else {
         let (edge, _) = edge_temperature(p)?;
         let sheet = Sheet::VapourNearCritical;
-        let edges = on_edges(sheet, x_of(sheet, p), column)?;
-        (edge, false, value >= edges.0, Some(edges))
+        let x = x_of(sheet, p);
+        let edges = on_edges(sheet, x, column)?;
+        (edge, false, value >= edges.0, Some((x, edges)))
     };
     let low = p < table::BOUNDARY_PRESSURE_PA;
     if vapour {
@@ -850,11 +861,12 @@ fn state_across_phases(
             (Sheet::VapourLow, None)
         } else {
             let high = Sheet::VapourHigh;
-            let high_edges = on_edges(high, x_of(high, p), column)?;
+            let x = x_of(high, p);
+            let high_edges = on_edges(high, x, column)?;
             if value < high_edges.0 {
                 (Sheet::VapourNearCritical, near_critical_edges)
             } else {
-                (Sheet::VapourHigh, Some(high_edges))
+                (Sheet::VapourHigh, Some((x, high_edges)))
             }
         };
         state_from_given(sheet, p, edge, saturated, given, edges).map(FluidState::SuperheatedVapour)
@@ -863,9 +875,10 @@ fn state_across_phases(
             (Sheet::LiquidLow, None)
         } else {
             let high = Sheet::LiquidHigh;
-            let high_edges = on_edges(high, x_of(high, p), column)?;
+            let x = x_of(high, p);
+            let high_edges = on_edges(high, x, column)?;
             if value <= high_edges.0 {
-                (Sheet::LiquidHigh, Some(high_edges))
+                (Sheet::LiquidHigh, Some((x, high_edges)))
             } else {
                 (Sheet::LiquidNearCritical, None)
             }

@@ -172,12 +172,17 @@ impl<const Q: usize> BicubicSheet<Q> {
         let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
         let stride = (self.y_intervals as usize).checked_add(3)?;
         let start = i.checked_mul(stride)?.checked_add(j)?;
+        // Rows i … i + 3 from column j: one slice, cut into rows of the
+        // stride (the last one only 4 long), so a single range check
+        // covers all 16 entries.
+        let len = stride.checked_mul(3)?.checked_add(4)?;
         let coefficients: &'static [[f32; Q]] = self.coefficients;
-        let block = coefficients.get(start..)?;
-        let row = |a: usize| -> Option<&'static [[f32; Q]; 4]> {
-            block.get(a.checked_mul(stride)?..)?.first_chunk::<4>()
-        };
-        Some((weights(tx), ty, [row(0)?, row(1)?, row(2)?, row(3)?]))
+        let block = coefficients.get(start..start.checked_add(len)?)?;
+        // Offsets of rows 1 to 3 (no overflow: 3·stride + 4 fitted above).
+        let (s1, s2) = (stride, stride.wrapping_add(stride));
+        let s3 = s2.wrapping_add(stride);
+        let row = |o: usize| block.get(o..).and_then(|r| r.first_chunk::<4>());
+        Some((weights(tx), ty, [row(0)?, row(s1)?, row(s2)?, row(s3)?]))
     }
 
     /// Every quantity at (x, y). `None` only for a malformed sheet (too few
@@ -232,18 +237,22 @@ impl<const Q: usize> BicubicSheet<Q> {
         let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
         let stride = (self.y_intervals as usize).checked_add(3)?;
         let wx = weights(tx);
+        let start = i.checked_mul(stride)?;
         let coefficients: &'static [[f32; Q]] = self.coefficients;
+        let block = coefficients.get(start..start.checked_add(stride.checked_mul(4)?)?)?;
         let (mut low, mut high) = (0.0f32, 0.0f32);
-        for (a, wa) in wx.iter().enumerate() {
-            let row = coefficients.get(i.checked_add(a)?.checked_mul(stride)?..)?;
+        for (a, (row, wa)) in block.chunks_exact(stride).zip(wx.iter()).enumerate() {
+            // The first interval's block starts at column 0, the last
+            // one's at y_intervals − 1: its non-zero weights fall on the
+            // row's last three columns.
             let first = row.first_chunk::<3>()?;
-            // The last interval's block starts at y_intervals - 1.
-            let last = row.get(stride.checked_sub(3)?..)?.first_chunk::<3>()?;
-            let r0 = SIXTH * first[0].get(q)?
-                + FOUR_SIXTHS * first[1].get(q)?
-                + SIXTH * first[2].get(q)?;
-            let r1 =
-                SIXTH * last[0].get(q)? + FOUR_SIXTHS * last[1].get(q)? + SIXTH * last[2].get(q)?;
+            let last = row.last_chunk::<3>()?;
+            let r0 = SIXTH * *first[0].get(q)?
+                + FOUR_SIXTHS * *first[1].get(q)?
+                + SIXTH * *first[2].get(q)?;
+            let r1 = SIXTH * *last[0].get(q)?
+                + FOUR_SIXTHS * *last[1].get(q)?
+                + SIXTH * *last[2].get(q)?;
             if a == 0 {
                 low = wa * r0;
                 high = wa * r1;
