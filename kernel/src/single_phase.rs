@@ -39,7 +39,10 @@
 //! Above pc the split T_split(p) = Tc + k·(p − pc) + c·(p − pc)² has the
 //! slope and curvature of the saturation line at pc, so the coordinates are
 //! smooth through pc. The saturation temperature comes from
-//! [`crate::saturation`]. One look-up of a tensor-product cubic B-spline
+//! [`crate::saturation`]. The logarithms, exponentials and square roots of
+//! these coordinates are short fixed f32 sequences (bit-pattern range
+//! reduction and a short series, the same functions as `libm` to a few
+//! units in the last place), not library calls. One look-up of a tensor-product cubic B-spline
 //! ([`crate::spline::BicubicSheet`]) gives ρ (ρ/p for the vapour sheets
 //! outside Region 3), h, s, 1/cp, w and ln μ; κ = ρ·w²/p.
 //!
