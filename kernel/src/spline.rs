@@ -240,11 +240,14 @@ impl<const Q: usize> BicubicSheet<Q> {
         let start = i.checked_mul(stride)?;
         let coefficients: &'static [[f32; Q]] = self.coefficients;
         let block = coefficients.get(start..start.checked_add(stride.checked_mul(4)?)?)?;
+        // The four rows; in each, the first interval's block starts at
+        // column 0 and the last one's at y_intervals − 1, its non-zero
+        // weights on the row's last three columns.
+        let (r0, rest) = block.split_at_checked(stride)?;
+        let (r1, rest) = rest.split_at_checked(stride)?;
+        let (r2, r3) = rest.split_at_checked(stride)?;
         let (mut low, mut high) = (0.0f32, 0.0f32);
-        for (a, (row, wa)) in block.chunks_exact(stride).zip(wx.iter()).enumerate() {
-            // The first interval's block starts at column 0, the last
-            // one's at y_intervals − 1: its non-zero weights fall on the
-            // row's last three columns.
+        for (a, (row, wa)) in [r0, r1, r2, r3].into_iter().zip(wx.iter()).enumerate() {
             let first = row.first_chunk::<3>()?;
             let last = row.last_chunk::<3>()?;
             let r0 = SIXTH * *first[0].get(q)?
