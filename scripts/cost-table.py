@@ -215,6 +215,14 @@ INSN_TARGETS = [
     ("phase_from_pressure_enthalpy", "dryness fraction from (p, h)", 200),
 ]
 STACK_TARGET_BYTES = 256
+# Issue 5's single-phase targets (Cortex-M4F, worst case over the sweep),
+# shown in the README table only: function, label, target. Missed so far;
+# the fuzz-corpus check holds their corpus inputs to the sweep's worst case
+# plus margin like every other function with a sweep row.
+SINGLE_PHASE_TARGETS = [
+    ("single_phase_state_at_pressure_temperature", "single-phase state at (p, T)", 400),
+    ("single_phase_state_at_pressure_enthalpy", "state at (p, h) across phases", 600),
+]
 # Rows of the cost table that are not kernel functions.
 NOT_KERNEL = ("f64_", "libm_", "horner")
 
@@ -324,6 +332,12 @@ def readme(cost_dir, readme_path):
             if worst > limit:
                 verdict += f", **exceeded** by {worst - limit}"
         lines.append(f"| {label} (`{name}`) ≤ {target} instructions | {worst} | {verdict} |")
+    for name, label, limit in SINGLE_PHASE_TARGETS:
+        if name not in costs[m4f]:
+            continue
+        worst = int(costs[m4f][name]["max_insns"])
+        verdict = "met" if worst <= limit else f"**missed** by {worst - limit}"
+        lines.append(f"| {label} (`{name}`) ≤ {limit} instructions | {worst} | {verdict} |")
     ram = sizes[m4f]["kernel"][2]
     lines.append(f"| kernel static RAM 0 bytes | {ram} | {'met' if ram == 0 else '**missed**'} |")
     deepest = max(kernel_rows, key=lambda n: int(costs[m4f][n]["stack_bytes"]))

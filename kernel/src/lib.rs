@@ -9,6 +9,7 @@ pub mod calorimeter;
 pub mod drum_level;
 pub mod energy;
 pub mod error;
+mod fast_math;
 pub mod flowing;
 pub mod integrity;
 pub mod mixture;

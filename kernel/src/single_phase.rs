@@ -39,7 +39,10 @@
 //! Above pc the split T_split(p) = Tc + k·(p − pc) + c·(p − pc)² has the
 //! slope and curvature of the saturation line at pc, so the coordinates are
 //! smooth through pc. The saturation temperature comes from
-//! [`crate::saturation`]. One look-up of a tensor-product cubic B-spline
+//! [`crate::saturation`]. The logarithms, exponentials and square roots of
+//! these coordinates are short fixed f32 sequences (bit-pattern range
+//! reduction and a short series, the same functions as `libm` to a few
+//! units in the last place), not library calls. One look-up of a tensor-product cubic B-spline
 //! ([`crate::spline::BicubicSheet`]) gives ρ (ρ/p for the vapour sheets
 //! outside Region 3), h, s, 1/cp, w and ln μ; κ = ρ·w²/p.
 //!
@@ -66,6 +69,7 @@
 use core::fmt;
 
 use crate::error::SaturationError;
+use crate::fast_math;
 use crate::mixture::WetSteam;
 use crate::saturation;
 use crate::spline::{at_least, SinglePhaseSheet};
@@ -341,7 +345,7 @@ fn b23_temperature_k(p_pa: f32) -> f32 {
     #[allow(clippy::excessive_precision)]
     const N5: f32 = 0.139_188_397_788_70e2;
     let ratio = (p_pa * 1.0e-6 - N5) * (1.0 / N3);
-    N4 + libm::sqrtf(if ratio > 0.0 { ratio } else { 0.0 })
+    N4 + fast_math::sqrt(if ratio > 0.0 { ratio } else { 0.0 })
 }
 
 /// The sheet's x coordinate of a pressure (see the module docs).
@@ -350,11 +354,11 @@ fn x_of(sheet: Sheet, p_pa: f32) -> f32 {
     let to_critical = p_pa - table::CRITICAL_PRESSURE_PA;
     match sheet {
         Sheet::VapourLow | Sheet::LiquidLow => {
-            libm::logf(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
+            fast_math::ln(p_pa) + p_pa * table::X_INVERSE_PRESSURE_SCALE_PA
         }
         Sheet::LiquidHigh | Sheet::VapourHigh => p_pa * 1.0e-6,
         Sheet::LiquidNearCritical | Sheet::VapourNearCritical => {
-            libm::asinhf(to_critical * table::CRITICAL_INVERSE_SCALE_PA)
+            fast_math::asinh(to_critical * table::CRITICAL_INVERSE_SCALE_PA)
                 + to_critical * table::CRITICAL_INVERSE_LINEAR_SCALE_PA
         }
     }
@@ -372,9 +376,16 @@ struct Geometry {
 }
 
 impl Geometry {
+    #[inline]
     fn new(sheet: Sheet, p_pa: f32, edge_k: f32) -> Self {
+        Self::at_x(sheet, p_pa, edge_k, x_of(sheet, p_pa))
+    }
+
+    /// As [`Self::new`] with the sheet's x coordinate of `p_pa` already
+    /// computed.
+    #[inline(always)]
+    fn at_x(sheet: Sheet, p_pa: f32, edge_k: f32, x: f32) -> Self {
         let data = sheet.data();
-        let x = x_of(sheet, p_pa);
         let (t0, t1) = match sheet {
             Sheet::VapourLow => (edge_k, TEMPERATURE_MAX_K),
             Sheet::LiquidLow => (edge_k, TEMPERATURE_MIN_K),
@@ -394,7 +405,7 @@ impl Geometry {
         let d = (p_pa - data.cluster_reference_pa) * table::CLUSTER_INVERSE_SMOOTHING_PA;
         let delta = data.cluster_base_k
             + data.cluster_slope_k_pa
-                * libm::sqrtf(d * d + 1.0)
+                * fast_math::sqrt(d * d + 1.0)
                 * (1.0 / table::CLUSTER_INVERSE_SMOOTHING_PA);
         Self {
             x,
@@ -402,7 +413,7 @@ impl Geometry {
             direction,
             width,
             delta,
-            log_span: libm::log1pf(width / delta),
+            log_span: fast_math::ln_1p(width / delta),
         }
     }
 
@@ -411,20 +422,20 @@ impl Geometry {
     fn y_of(&self, t_k: f32) -> f32 {
         let d = self.direction * (t_k - self.t0);
         let d = if d > 0.0 { d } else { 0.0 };
-        clamp_unit(libm::log1pf(d / self.delta) / self.log_span)
+        clamp_unit(fast_math::ln_1p(d / self.delta) / self.log_span)
     }
 
     /// ψ of a property fraction φ (the inverse sheets' coordinate).
     #[inline]
     fn psi_of(&self, phi: f32) -> f32 {
         let phi = clamp_unit(phi);
-        clamp_unit(libm::log1pf(phi * self.width / self.delta) / self.log_span)
+        clamp_unit(fast_math::ln_1p(phi * self.width / self.delta) / self.log_span)
     }
 
     /// Temperature at y.
     #[inline]
     fn t_of(&self, y: f32) -> f32 {
-        self.t0 + self.direction * self.delta * libm::expm1f(y * self.log_span)
+        self.t0 + self.direction * self.delta * fast_math::exp_m1(y * self.log_span)
     }
 }
 
@@ -527,7 +538,7 @@ fn state_on_sheet(
         cp_j_kgk: 1.0 / at_least(q[INVERSE_CP], INVERSE_CP_FLOOR),
         speed_of_sound_m_s: w,
         isentropic_exponent: density * w * w / p_pa,
-        viscosity_pa_s: libm::expf(q[LN_VISCOSITY]),
+        viscosity_pa_s: fast_math::exp(q[LN_VISCOSITY]),
         saturation_margin_k: if saturated { Some(t_k - edge_k) } else { None },
     })
 }
@@ -713,13 +724,14 @@ impl Given {
     }
 }
 
-/// The given property on a sheet's edge y (0 or 1) at the sheet's x.
+/// The given property on both edges of a sheet (y = 0, y = 1) at the
+/// sheet's x.
 #[inline]
-fn on_edge(sheet: Sheet, x: f32, y: f32, column: usize) -> Result<f32, SinglePhaseError> {
+fn on_edges(sheet: Sheet, x: f32, column: usize) -> Result<(f32, f32), SinglePhaseError> {
     sheet
         .data()
         .properties
-        .evaluate_one(x, y, column)
+        .evaluate_edges(x, column)
         .ok_or(SinglePhaseError::EmptyTable)
 }
 
@@ -733,22 +745,31 @@ fn envelope_error(p_pa: f32, given: Given) -> SinglePhaseError {
         (Sheet::LiquidHigh, Sheet::VapourHigh)
     };
     let column = given.column();
-    let at = |sheet: Sheet| on_edge(sheet, x_of(sheet, p_pa), 1.0, column).unwrap_or(f32::NAN);
+    let at =
+        |sheet: Sheet| on_edges(sheet, x_of(sheet, p_pa), column).map_or(f32::NAN, |(_, far)| far);
     given.out_of_range(at(cold), at(hot))
 }
 
 /// The state on `sheet` with the given property, through the inverse sheet.
+/// `known`: the sheet's x of p and the given property on the sheet's edges
+/// there, if the caller has them already.
 fn state_from_given(
     sheet: Sheet,
     p_pa: f32,
     edge_k: f32,
     saturated: bool,
     given: Given,
+    known: Option<(f32, (f32, f32))>,
 ) -> Result<SinglePhaseState, SinglePhaseError> {
-    let g = Geometry::new(sheet, p_pa, edge_k);
+    let (g, edges) = match known {
+        Some((x, edges)) => (Geometry::at_x(sheet, p_pa, edge_k, x), Some(edges)),
+        None => (Geometry::new(sheet, p_pa, edge_k), None),
+    };
     let column = given.column();
-    let at0 = on_edge(sheet, g.x, 0.0, column)?;
-    let at1 = on_edge(sheet, g.x, 1.0, column)?;
+    let (at0, at1) = match edges {
+        Some(e) => e,
+        None => on_edges(sheet, g.x, column)?,
+    };
     let span = at1 - at0;
     let phi = if span != 0.0 {
         (given.value() - at0) / span
@@ -782,22 +803,30 @@ fn state_across_phases(
     check_pressure(p)?;
     let value = given.value();
     let column = given.column();
-    let (edge, saturated) = edge_temperature(p)?;
-    // Which side of the dome (or of T_split above pc).
-    let vapour = if saturated {
-        let sat = saturation::saturated_state_at_pressure(AbsolutePressure::from_table_pa(
-            if p > saturation::PRESSURE_MIN_PA {
-                p
-            } else {
-                saturation::PRESSURE_MIN_PA
-            },
-        ))?;
+    // Which side of the dome (or of T_split above pc); one look-up of the
+    // saturation tables gives T_sat and the saturated values.
+    let (edge, saturated, vapour, near_critical_edges) = if p < table::CRITICAL_PRESSURE_PA {
+        // The saturation tables' pressure (the input, or their lowest
+        // pressure for an input a hair below it).
+        let p_sat = if p > saturation::PRESSURE_MIN_PA {
+            p
+        } else {
+            saturation::PRESSURE_MIN_PA
+        };
+        let (block, t, t_sat) =
+            saturation::interval_at_pressure(AbsolutePressure::from_table_pa(p_sat))?;
         let (liquid_value, vapour_value) = match given {
-            Given::Enthalpy(_) => (sat.liquid.enthalpy_j_kg, sat.vapour.enthalpy_j_kg),
-            Given::Entropy(_) => (sat.liquid.entropy_j_kgk, sat.vapour.entropy_j_kgk),
+            Given::Enthalpy(_) => (
+                saturation::liquid_enthalpy(block, t),
+                saturation::vapour_enthalpy(block, t),
+            ),
+            Given::Entropy(_) => (
+                saturation::liquid_entropy(block, t),
+                saturation::vapour_entropy(block, t),
+            ),
         };
         if value > vapour_value {
-            true
+            (t_sat, true, true, None)
         } else if value >= liquid_value {
             let span = vapour_value - liquid_value;
             let x = clamp_unit(if span > 0.0 {
@@ -805,51 +834,59 @@ fn state_across_phases(
             } else {
                 0.0
             });
-            let v_l = sat.liquid.specific_volume_m3_kg;
-            let v = v_l + x * (sat.vapour.specific_volume_m3_kg - v_l);
+            let h_l = saturation::liquid_enthalpy(block, t);
+            let s_l = saturation::liquid_entropy(block, t);
+            let v_l = 1.0 / saturation::liquid_density(block, t);
+            let v_v = 1.0 / saturation::vapour_density(block, t, p_sat);
+            let v = v_l + x * (v_v - v_l);
             return Ok(FluidState::WetSteam(WetSteam {
-                // The saturation tables' pressure (the input, or their
-                // lowest pressure for an input a hair below it).
-                pressure: sat.pressure,
-                temperature: sat.temperature,
+                pressure: AbsolutePressure::from_table_pa(p_sat),
+                temperature: Temperature::from_table_k(t_sat),
                 dryness_fraction: x,
-                enthalpy_j_kg: sat.liquid.enthalpy_j_kg + x * sat.latent_heat_j_kg,
-                entropy_j_kgk: sat.liquid.entropy_j_kgk + x * sat.entropy_of_vaporisation_j_kgk,
+                enthalpy_j_kg: h_l + x * (saturation::vapour_enthalpy(block, t) - h_l),
+                entropy_j_kgk: s_l + x * (saturation::vapour_entropy(block, t) - s_l),
                 specific_volume_m3_kg: v,
                 density_kg_m3: 1.0 / v,
             }));
         } else {
-            false
+            (t_sat, true, false, None)
         }
     } else {
+        let (edge, _) = edge_temperature(p)?;
         let sheet = Sheet::VapourNearCritical;
-        value >= on_edge(sheet, x_of(sheet, p), 0.0, column)?
+        let x = x_of(sheet, p);
+        let edges = on_edges(sheet, x, column)?;
+        (edge, false, value >= edges.0, Some((x, edges)))
     };
     let low = p < table::BOUNDARY_PRESSURE_PA;
     if vapour {
-        let sheet = if low {
-            Sheet::VapourLow
+        let (sheet, edges) = if low {
+            (Sheet::VapourLow, None)
         } else {
             let high = Sheet::VapourHigh;
-            if value < on_edge(high, x_of(high, p), 0.0, column)? {
-                Sheet::VapourNearCritical
+            let x = x_of(high, p);
+            let high_edges = on_edges(high, x, column)?;
+            if value < high_edges.0 {
+                (Sheet::VapourNearCritical, near_critical_edges)
             } else {
-                Sheet::VapourHigh
+                (Sheet::VapourHigh, Some((x, high_edges)))
             }
         };
-        state_from_given(sheet, p, edge, saturated, given).map(FluidState::SuperheatedVapour)
+        state_from_given(sheet, p, edge, saturated, given, edges).map(FluidState::SuperheatedVapour)
     } else {
-        let sheet = if low {
-            Sheet::LiquidLow
+        let (sheet, edges) = if low {
+            (Sheet::LiquidLow, None)
         } else {
             let high = Sheet::LiquidHigh;
-            if value <= on_edge(high, x_of(high, p), 0.0, column)? {
-                Sheet::LiquidHigh
+            let x = x_of(high, p);
+            let high_edges = on_edges(high, x, column)?;
+            if value <= high_edges.0 {
+                (Sheet::LiquidHigh, Some((x, high_edges)))
             } else {
-                Sheet::LiquidNearCritical
+                (Sheet::LiquidNearCritical, None)
             }
         };
-        state_from_given(sheet, p, edge, saturated, given).map(FluidState::CompressedLiquid)
+        state_from_given(sheet, p, edge, saturated, given, edges).map(FluidState::CompressedLiquid)
     }
 }
 

@@ -160,28 +160,43 @@ fn interval(u: f32, n: u32) -> (usize, f32) {
     (i as usize, u - i as f32)
 }
 
+/// Four rows of four coefficients: the block of a bicubic look-up.
+type Block<const Q: usize> = [&'static [[f32; Q]; 4]; 4];
+
 impl<const Q: usize> BicubicSheet<Q> {
+    /// The x weights and the 4 × 4 block of coefficients around (x, y),
+    /// with the y position. `None` only for a malformed sheet.
+    #[inline]
+    fn block(&self, x: f32, y: f32) -> Option<([f32; 4], f32, Block<Q>)> {
+        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
+        let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
+        let stride = (self.y_intervals as usize).checked_add(3)?;
+        let start = i.checked_mul(stride)?.checked_add(j)?;
+        // Rows i … i + 3 from column j: one slice, cut into rows of the
+        // stride (the last one only 4 long), so a single range check
+        // covers all 16 entries.
+        let len = stride.checked_mul(3)?.checked_add(4)?;
+        let coefficients: &'static [[f32; Q]] = self.coefficients;
+        let block = coefficients.get(start..start.checked_add(len)?)?;
+        // Offsets of rows 1 to 3 (no overflow: 3·stride + 4 fitted above).
+        let (s1, s2) = (stride, stride.wrapping_add(stride));
+        let s3 = s2.wrapping_add(stride);
+        let row = |o: usize| block.get(o..).and_then(|r| r.first_chunk::<4>());
+        Some((weights(tx), ty, [row(0)?, row(s1)?, row(s2)?, row(s3)?]))
+    }
+
     /// Every quantity at (x, y). `None` only for a malformed sheet (too few
     /// coefficients), which the generator never writes.
     #[inline]
     pub fn evaluate(&self, x: f32, y: f32) -> Option<[f32; Q]> {
-        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
-        let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
-        let stride = (self.y_intervals as usize).checked_add(3)?;
-        let wx = weights(tx);
+        let (wx, ty, rows) = self.block(x, y)?;
         let wy = weights(ty);
         let mut out = [0.0f32; Q];
-        for (a, wa) in wx.iter().enumerate() {
-            let start = i.checked_add(a)?.checked_mul(stride)?.checked_add(j)?;
-            let row = self.coefficients.get(start..start.checked_add(4)?)?;
-            let mut r = [0.0f32; Q];
-            for (c, wb) in row.iter().zip(wy.iter()) {
-                for (rq, cq) in r.iter_mut().zip(c.iter()) {
-                    *rq += wb * cq;
-                }
-            }
-            for (o, rq) in out.iter_mut().zip(r.iter()) {
-                *o += wa * rq;
+        for (a, (row, wa)) in rows.iter().zip(wx.iter()).enumerate() {
+            for (q, o) in out.iter_mut().enumerate() {
+                let r =
+                    wy[0] * row[0][q] + wy[1] * row[1][q] + wy[2] * row[2][q] + wy[3] * row[3][q];
+                *o = if a == 0 { wa * r } else { *o + wa * r };
             }
         }
         Some(out)
@@ -194,22 +209,62 @@ impl<const Q: usize> BicubicSheet<Q> {
         if q >= Q {
             return None;
         }
-        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
-        let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
-        let stride = (self.y_intervals as usize).checked_add(3)?;
-        let wx = weights(tx);
+        let (wx, ty, rows) = self.block(x, y)?;
         let wy = weights(ty);
         let mut out = 0.0f32;
-        for (a, wa) in wx.iter().enumerate() {
-            let start = i.checked_add(a)?.checked_mul(stride)?.checked_add(j)?;
-            let row = self.coefficients.get(start..start.checked_add(4)?)?;
-            let mut r = 0.0f32;
-            for (c, wb) in row.iter().zip(wy.iter()) {
-                r += wb * c.get(q)?;
-            }
-            out += wa * r;
+        for (a, (row, wa)) in rows.iter().zip(wx.iter()).enumerate() {
+            let r = wy[0] * row[0].get(q)?
+                + wy[1] * row[1].get(q)?
+                + wy[2] * row[2].get(q)?
+                + wy[3] * row[3].get(q)?;
+            out = if a == 0 { wa * r } else { out + wa * r };
         }
         Some(out)
+    }
+
+    /// One quantity at both y edges, (value at y = 0, value at y = 1), with
+    /// the x weights computed once: the same values as
+    /// [`Self::evaluate_one`] at y = 0 and y = 1 up to rounding (the y
+    /// weights there are the constants 1/6, 4/6, 1/6). `None` for a
+    /// malformed sheet or `q ≥ Q`.
+    #[inline]
+    pub(crate) fn evaluate_edges(&self, x: f32, q: usize) -> Option<(f32, f32)> {
+        if q >= Q {
+            return None;
+        }
+        const SIXTH: f32 = 1.0 / 6.0;
+        const FOUR_SIXTHS: f32 = 4.0 / 6.0;
+        let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
+        let stride = (self.y_intervals as usize).checked_add(3)?;
+        let wx = weights(tx);
+        let start = i.checked_mul(stride)?;
+        let coefficients: &'static [[f32; Q]] = self.coefficients;
+        let block = coefficients.get(start..start.checked_add(stride.checked_mul(4)?)?)?;
+        // The four rows; in each, the first interval's block starts at
+        // column 0 and the last one's at y_intervals − 1, its non-zero
+        // weights on the row's last three columns.
+        let (r0, rest) = block.split_at_checked(stride)?;
+        let (r1, rest) = rest.split_at_checked(stride)?;
+        let (r2, r3) = rest.split_at_checked(stride)?;
+        let (mut low, mut high) = (0.0f32, 0.0f32);
+        for (a, (row, wa)) in [r0, r1, r2, r3].into_iter().zip(wx.iter()).enumerate() {
+            let first = row.first_chunk::<3>()?;
+            let last = row.last_chunk::<3>()?;
+            let r0 = SIXTH * *first[0].get(q)?
+                + FOUR_SIXTHS * *first[1].get(q)?
+                + SIXTH * *first[2].get(q)?;
+            let r1 = SIXTH * *last[0].get(q)?
+                + FOUR_SIXTHS * *last[1].get(q)?
+                + SIXTH * *last[2].get(q)?;
+            if a == 0 {
+                low = wa * r0;
+                high = wa * r1;
+            } else {
+                low += wa * r0;
+                high += wa * r1;
+            }
+        }
+        Some((low, high))
     }
 }
 
