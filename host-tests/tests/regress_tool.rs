@@ -102,6 +102,17 @@ fn saturation_mode_writes_the_columns_and_keeps_bad_rows() {
     }
 }
 
+/// The columns every single-phase row gets, from either model.
+const SINGLE_PHASE_FILLED: [&str; 7] = [
+    "t_k",
+    "rho_kg_m3",
+    "h_j_kg",
+    "s_j_kgk",
+    "cp_j_kgk",
+    "kappa",
+    "viscosity_pa_s",
+];
+
 #[test]
 fn state_mode_gives_phase_quality_and_the_kernel_single_phase_values() {
     let input = "p_pa,t_k,h_j_kg,s_j_kgk,x\n\
@@ -151,15 +162,7 @@ fn state_mode_gives_phase_quality_and_the_kernel_single_phase_values() {
     for row in &rows[2..6] {
         assert_eq!(cell(&header, row, "error"), "", "{row:?}");
         assert_eq!(cell(&header, row, "x"), "", "x outside the dome: {row:?}");
-        for c in [
-            "t_k",
-            "rho_kg_m3",
-            "h_j_kg",
-            "s_j_kgk",
-            "cp_j_kgk",
-            "kappa",
-            "viscosity_pa_s",
-        ] {
+        for c in SINGLE_PHASE_FILLED {
             assert!(!cell(&header, row, c).is_empty(), "{c} in {row:?}");
         }
     }
@@ -172,15 +175,7 @@ fn state_mode_gives_phase_quality_and_the_kernel_single_phase_values() {
     let (header, rows) = table_of(&out.stdout);
     for row in &rows[2..6] {
         assert_eq!(cell(&header, row, "error"), "", "{row:?}");
-        for c in [
-            "t_k",
-            "rho_kg_m3",
-            "h_j_kg",
-            "s_j_kgk",
-            "cp_j_kgk",
-            "kappa",
-            "viscosity_pa_s",
-        ] {
+        for c in SINGLE_PHASE_FILLED {
             assert!(!cell(&header, row, c).is_empty(), "{c} in {row:?}");
         }
     }
