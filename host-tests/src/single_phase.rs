@@ -14,29 +14,9 @@ pub const TC: f64 = 647.096;
 /// Critical pressure, Pa (IAPWS R7-97(2012), Eq. 4).
 pub const PC: f64 = 22.064e6;
 
-/// Zones of the accuracy statement.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Zone {
-    /// Beyond 15 K or 3 MPa of the critical point.
-    Far,
-    /// Outside the near-critical box, inside 15 K and 3 MPa.
-    Ring,
-    /// Within 5 K and 1 MPa of the critical point (issue 5's near-critical box).
-    Box,
-}
-
-/// The zone of (p, T).
-pub fn zone(p: f64, t: f64) -> Zone {
-    let dp = (p - PC).abs();
-    let dt = (t - TC).abs();
-    if dp <= 1.0e6 && dt <= 5.0 {
-        Zone::Box
-    } else if dp <= 3.0e6 && dt <= 15.0 {
-        Zone::Ring
-    } else {
-        Zone::Far
-    }
-}
+/// Zones of the accuracy statement (the generator's own measurement uses
+/// the same ones).
+pub use vapora_tables::generator::single_phase::{zone, Zone};
 
 /// Largest deviations of one zone, with where they occur.
 #[derive(Debug, Clone, Copy, Default, PartialEq)]
