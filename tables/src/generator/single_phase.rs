@@ -149,7 +149,7 @@ impl Default for SinglePhaseConfig {
             pressure_max_pa: 25.0e6,
             temperature_min_k: 273.16,
             temperature_max_k: 1073.15,
-            intervals: [[36, 22], [24, 32], [14, 30], [38, 20], [40, 26], [16, 20]],
+            intervals: [[36, 22], [24, 32], [14, 28], [38, 20], [40, 24], [16, 20]],
             inverse_intervals: [24, 24, 18, 24, 28, 22],
             cluster_base_k: [0.5, 60.0, 100.0, 0.05, 0.1, 20.0],
             cluster_k_per_mpa: [1.0, 0.0, 5.0, 0.7, 1.0, 1.0],
