@@ -3,8 +3,9 @@
 //! envelope, including every grid pressure at 0.01 K, 0.1 K and 1 K from
 //! saturation on either side, plus seeded random points: prints the maxima
 //! per zone and fails above the bounds of `vapora_host_tests::single_phase`
-//! (issue 5's bounds beyond 15 K / 3 MPa of the critical point; the measured
-//! looser bounds of the committed tables in the ring and the box).
+//! (issue 5's bounds beyond 15 K / 3 MPa of the critical point and in the
+//! ring but for T from (p, h) and (p, s); the measured looser bounds of the
+//! committed tables for those two in the ring and for all in the box).
 
 use rand::{Rng, SeedableRng};
 use rand_chacha::ChaCha8Rng;

@@ -31,7 +31,7 @@
 //! x = ln(p/Pa) + p/p1 below p_b (p1 = 2 MPa: logarithmic at low pressure,
 //! finer towards p_b), x = p/MPa for the liquid below 623.15 K and the vapour
 //! beyond B23 from p_b up, and x = asinh((p − pc)/p_s) + (p − pc)/p_l
-//! (p_s = 0.5 MPa, p_l = 4 MPa) in Region 3, smooth through pc with the
+//! (p_s = 0.3 MPa, p_l = 6 MPa) in Region 3, smooth through pc with the
 //! knots crowded towards it; and a temperature coordinate that follows the
 //! sheet's edges T0(p) and T1(p): with d = |T − T0| and D = |T1 − T0|,
 //! y = ln(1 + d/δ)/ln(1 + D/δ), δ = δ_base + δ_slope·√((p − p_ref)² + p_m²) (p_m = 0.5 MPa),
@@ -59,9 +59,9 @@
 //! point: ρ within 20 ppm, h 20 J/kg, s 0.05 J/(kg·K), cp and κ 0.05 %,
 //! μ 0.05 %, T from (p, h) 2 mK, down to 0.01 K from saturation on either
 //! side. Between that and the near-critical box (5 K and 1 MPa of the
-//! critical point) the committed tables are looser (ρ 1e-4, h 40 J/kg,
-//! s 0.07 J/(kg·K), T(p, h) 12 mK); inside the box looser still (ρ 4 %,
-//! h 25 kJ/kg, cp 30 %).
+//! critical point) the committed tables meet the same bounds but for T from
+//! (p, h) and (p, s), held to 6 mK; inside the box looser (ρ 3 %,
+//! h 15 kJ/kg, cp 10 %).
 //!
 //! This is a calculation library, not a certified safety device: low-water
 //! trips and pressure relief stay with certified hardware.

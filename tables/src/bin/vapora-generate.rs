@@ -70,8 +70,8 @@ fn run_single_phase(mut args: impl Iterator<Item = String>) -> Result<(), String
         .zip(m)
         {
             eprintln!(
-                "measured, {zone}: rho {:.2e} h {:.2e} J/kg s {:.2e} cp {:.2e} w {:.2e} mu {:.2e} T(p,h) {:.2e} K",
-                z[0], z[1], z[2], z[3], z[4], z[5], z[6]
+                "measured, {zone}: rho {:.2e} h {:.2e} J/kg s {:.2e} cp {:.2e} w {:.2e} mu {:.2e} T(p,h) {:.2e} K T(p,s) {:.2e} K",
+                z[0], z[1], z[2], z[3], z[4], z[5], z[6], z[7]
             );
         }
     }

@@ -149,15 +149,15 @@ impl Default for SinglePhaseConfig {
             pressure_max_pa: 25.0e6,
             temperature_min_k: 273.16,
             temperature_max_k: 1073.15,
-            intervals: [[36, 28], [24, 36], [14, 30], [32, 14], [32, 28], [20, 26]],
-            inverse_intervals: [24, 24, 18, 16, 32, 22],
-            cluster_base_k: [0.5, 60.0, 100.0, 0.1, 0.1, 20.0],
-            cluster_k_per_mpa: [1.0, 0.0, 5.0, 1.0, 1.0, 1.0],
+            intervals: [[36, 22], [24, 32], [14, 28], [38, 20], [40, 24], [16, 20]],
+            inverse_intervals: [24, 24, 18, 24, 28, 22],
+            cluster_base_k: [0.5, 60.0, 100.0, 0.05, 0.1, 20.0],
+            cluster_k_per_mpa: [1.0, 0.0, 5.0, 0.7, 1.0, 1.0],
             cluster_reference_mpa: [22.064, 22.064, 16.53, 22.064, 22.064, 16.53],
             samples_per_interval: 4,
             x_pressure_scale_pa: 2.0e6,
-            critical_scale_pa: 0.5e6,
-            critical_linear_scale_pa: 4.0e6,
+            critical_scale_pa: 0.3e6,
+            critical_linear_scale_pa: 6.0e6,
             cluster_smoothing_pa: 0.5e6,
         }
     }
@@ -1212,8 +1212,8 @@ pub fn zone(p: f64, t: f64) -> Zone {
 }
 
 /// Largest deviations: ρ relative, h J/kg, s J/(kg·K), cp relative,
-/// w relative, μ relative, T(p, h) K.
-pub type Maxima = [f64; 7];
+/// w relative, μ relative, T(p, h) K, T(p, s) K.
+pub type Maxima = [f64; 8];
 
 /// The generator's own measurement of the sheets (f64 evaluation of the f32
 /// coefficients) against the formulation, halfway between fitting samples,
@@ -1226,15 +1226,15 @@ pub fn measure_single_phase(
     points: usize,
 ) -> Result<[Maxima; 3], String> {
     let l = &g.limits;
-    let mut out = [[0.0f64; 7]; 3];
+    let mut out = [[0.0f64; 8]; 3];
     for s in &g.sheets {
         let kind = s.kind;
         if kind.high() && l.pressure_max_pa <= l.boundary_pressure_pa {
             // Outside the envelope: never reached.
             continue;
         }
-        let mut worst = [(0.0f64, 0.0f64, 0.0f64); 7];
-        let mut worst_ring = [(0.0f64, 0.0f64, 0.0f64); 7];
+        let mut worst = [(0.0f64, 0.0f64, 0.0f64); 8];
+        let mut worst_ring = [(0.0f64, 0.0f64, 0.0f64); 8];
         let (p_lo, p_hi) = pressure_range(kind, l);
         let (xa, xb) = (x_of_pressure(kind, l, p_lo), x_of_pressure(kind, l, p_hi));
         let nx = s.properties.x_intervals * points;
@@ -1262,6 +1262,13 @@ pub fn measure_single_phase(
                 );
                 let phi = (want[1] - a) / (b - a);
                 let yh = s.y_of_enthalpy.evaluate(x, e.psi_of(phi.clamp(0.0, 1.0)))[0];
+                // T from (p, s) likewise.
+                let (a, b) = (
+                    s.properties.evaluate(x, 0.0)[2],
+                    s.properties.evaluate(x, 1.0)[2],
+                );
+                let phi = (want[2] - a) / (b - a);
+                let ys = s.y_of_entropy.evaluate(x, e.psi_of(phi.clamp(0.0, 1.0)))[0];
                 let errs = [
                     rel(got[0], want[0]),
                     (got[1] - want[1]).abs(),
@@ -1270,8 +1277,9 @@ pub fn measure_single_phase(
                     rel(got[4], want[4]),
                     (got[5] - want[5]).abs(),
                     (e.t_of(yh) - t).abs(),
+                    (e.t_of(ys) - t).abs(),
                 ];
-                for q in 0..7 {
+                for q in 0..8 {
                     m[q] = m[q].max(errs[q]);
                     if z == 0 && errs[q] > worst[q].0 {
                         worst[q] = (errs[q], p, t);
