@@ -575,21 +575,6 @@ fn liquid_sheet(p_pa: f32, t_k: f32) -> Sheet {
     }
 }
 
-/// The range-checked (p, T) of a single-phase call, with the phase edge at p
-/// (T_sat(p), or T_split(p) at and above pc) and whether it is a
-/// saturation temperature.
-fn checked_point(
-    pressure: AbsolutePressure,
-    temperature: Temperature,
-) -> Result<(f32, f32, f32, bool), SinglePhaseError> {
-    let p = pressure.as_pa();
-    let t = temperature.as_kelvin();
-    check_pressure(p)?;
-    check_temperature(t)?;
-    let (edge, saturated) = edge_temperature(p)?;
-    Ok((p, t, edge, saturated))
-}
-
 /// Superheated vapour at (p, T): IF97 Region 2 and the vapour side of
 /// Region 3; at and above the critical pressure, the fluid above
 /// T_split(p) = Tc + k·(p − pc) (k ≈ 3.7 K/MPa, see the module docs).
@@ -618,7 +603,11 @@ pub fn superheated_vapour(
     pressure: AbsolutePressure,
     temperature: Temperature,
 ) -> Result<SinglePhaseState, SinglePhaseError> {
-    let (p, t, edge, saturated) = checked_point(pressure, temperature)?;
+    let p = pressure.as_pa();
+    let t = temperature.as_kelvin();
+    check_pressure(p)?;
+    check_temperature(t)?;
+    let (edge, saturated) = edge_temperature(p)?;
     if t <= edge || t.is_nan() {
         return Err(SinglePhaseError::NotSuperheated { margin_k: t - edge });
     }
@@ -650,7 +639,11 @@ pub fn compressed_liquid(
     pressure: AbsolutePressure,
     temperature: Temperature,
 ) -> Result<SinglePhaseState, SinglePhaseError> {
-    let (p, t, edge, saturated) = checked_point(pressure, temperature)?;
+    let p = pressure.as_pa();
+    let t = temperature.as_kelvin();
+    check_pressure(p)?;
+    check_temperature(t)?;
+    let (edge, saturated) = edge_temperature(p)?;
     if t >= edge || t.is_nan() {
         return Err(SinglePhaseError::NotSubcooled { margin_k: t - edge });
     }
@@ -680,7 +673,11 @@ pub fn state_at_pressure_temperature(
     pressure: AbsolutePressure,
     temperature: Temperature,
 ) -> Result<FluidState, SinglePhaseError> {
-    let (p, t, edge, saturated) = checked_point(pressure, temperature)?;
+    let p = pressure.as_pa();
+    let t = temperature.as_kelvin();
+    check_pressure(p)?;
+    check_temperature(t)?;
+    let (edge, saturated) = edge_temperature(p)?;
     if t > edge {
         state_at(vapour_sheet(p, t), p, t, edge, saturated).map(FluidState::SuperheatedVapour)
     } else if t < edge {
