@@ -384,8 +384,8 @@ def readme(cost_dir, readme_path):
 # The stack target of the firmware issue (256 bytes) was set for the
 # saturation kernel. The single-phase look-ups hold a 4x4 block of six
 # quantities and nest the saturation look-up, and the application routines
-# call them: their sweep already needs up to 576 bytes on the M4F (the (p, s)
-# state), so they are held to LARGER_STACK_LIMIT_BYTES instead, a documented
+# call them: their sweep already needs up to 624 bytes on the M4F (the (p, s)
+# state, with the correction step after the inverse sheet), so they are held to LARGER_STACK_LIMIT_BYTES instead, a documented
 # limit about 10 % above that measured worst case, not to 256.
 LARGER_STACK_FUNCTIONS = {
     "superheated_vapour", "compressed_liquid", "state_at_pressure_temperature",
@@ -395,7 +395,7 @@ LARGER_STACK_FUNCTIONS = {
     "energy_flow_from_enthalpies_w", "drum_level", "drum_level_from_densities",
     "throttling_calorimeter_dryness", "separating_throttling_dryness",
 }
-LARGER_STACK_LIMIT_BYTES = 640
+LARGER_STACK_LIMIT_BYTES = 688
 
 
 def stack_limit(name):
@@ -569,7 +569,7 @@ def corpus_readme(corpus_path, readme_path):
         f"  for every function with a sweep, at most the sweep's worst case + "
         f"max({SLOW_PATH_MARGIN_MIN}, {round(100 * SLOW_PATH_MARGIN_RELATIVE)} %);",
         f"  stack at most {STACK_TARGET_BYTES} B ({LARGER_STACK_LIMIT_BYTES} B for the single-phase "
-        "and application functions, whose sweep already needs up to 576 B).",
+        "and application functions, whose sweep already needs up to 624 B).",
     ]
     lines.append(FUZZ_END)
     with open(readme_path) as f:

@@ -4,8 +4,7 @@
 //! saturation on either side, plus seeded random points: prints the maxima
 //! per zone and fails above the bounds of `vapora_host_tests::single_phase`
 //! (issue 5's bounds beyond 15 K / 3 MPa of the critical point and in the
-//! ring but for T from (p, h) and (p, s); the measured looser bounds of the
-//! committed tables for those two in the ring and for all in the box).
+//! ring; the measured looser bounds of the committed tables in the box).
 
 use rand::{Rng, SeedableRng};
 use rand_chacha::ChaCha8Rng;
