@@ -12,6 +12,7 @@
 #![deny(missing_docs)]
 
 pub mod adc;
+pub mod bench;
 pub mod compute;
 pub mod hold;
 pub mod kernel_calls;
@@ -21,3 +22,4 @@ pub mod report;
 pub mod scenario;
 pub mod sim_bus;
 pub mod stack_paint;
+pub mod vector_file;

@@ -15,16 +15,12 @@ use cortex_m_semihosting::{debug, hprintln};
 use panic_semihosting as _;
 
 use vapora_firmware_example::kernel_calls::CALLS;
+use vapora_firmware_example::vector_file::{self, u32_at, VectorFileError};
 
 static VECTORS: &[u8] = include_bytes!("../../vectors/kernel-bits.bin");
 
 /// Diff lines printed at most (the counts cover all of them).
 const MAX_PRINTED: u32 = 40;
-
-fn u32_at(bytes: &[u8], at: usize) -> Option<u32> {
-    let b = bytes.get(at..at + 4)?;
-    Some(u32::from_le_bytes([b[0], b[1], b[2], b[3]]))
-}
 
 /// f32 bits mapped to integers in the order of the values, so the distance
 /// of two mapped values is the number of ulps between them (+0 and −0 are
@@ -58,28 +54,22 @@ fn header_matches(header: &str) -> bool {
 }
 
 fn run() -> bool {
-    if VECTORS.get(..4) != Some(b"VKBV".as_slice()) {
-        hprintln!("error vector file has no magic");
+    let file = match vector_file::open(VECTORS, b"VKBV") {
+        Ok(file) => file,
+        Err(VectorFileError::NoMagic) => {
+            hprintln!("error vector file has no magic");
+            return false;
+        }
+        Err(VectorFileError::BadHeader) => {
+            hprintln!("error vector file header unreadable");
+            return false;
+        }
+    };
+    if !header_matches(file.header) {
         return false;
     }
-    let Some(header_len) = u32_at(VECTORS, 4) else {
-        return false;
-    };
-    let header_end = 8 + header_len as usize;
-    let header = VECTORS
-        .get(8..header_end)
-        .and_then(|h| core::str::from_utf8(h).ok());
-    let Some(header) = header else {
-        hprintln!("error vector file header unreadable");
-        return false;
-    };
-    if !header_matches(header) {
-        return false;
-    }
-    let Some(count) = u32_at(VECTORS, header_end) else {
-        return false;
-    };
-    let mut at = header_end + 4;
+    let (count, records_start) = (file.count, file.records_start);
+    let mut at = records_start;
     let mut per_function = [(0u32, 0u32, 0u64); 64];
     let (mut differing, mut words_compared) = (0u32, 0u32);
     for _ in 0..count {
@@ -99,7 +89,7 @@ fn run() -> bool {
         let input = [f32::from_bits(in0), f32::from_bits(in1)];
         let mut device = (call.eval)(input);
         // Test of the test harness: one flipped bit must make this fail.
-        if cfg!(feature = "inject-check-failure") && at == header_end + 4 {
+        if cfg!(feature = "inject-check-failure") && at == records_start {
             device.words[1] ^= 1;
         }
         let stats = &mut per_function[function % 64];

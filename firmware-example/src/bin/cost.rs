@@ -15,32 +15,9 @@ use cortex_m_rt::entry;
 use cortex_m_semihosting::{debug, hprintln};
 use panic_semihosting as _;
 
+use vapora_firmware_example::bench::measure_one;
 use vapora_firmware_example::measured::{Measured, BASELINE, CALIBRATION, KERNEL, STAND_INS};
-use vapora_firmware_example::stack_paint::{deepest_use, paint_below_sp, PAINT_BYTES};
-
-/// The marker the instruction-count plugin watches (by address, found with
-/// llvm-nm). A leaf that pushes nothing, so it does not disturb the paint.
-#[no_mangle]
-#[inline(never)]
-pub extern "C" fn bench_mark() {
-    cortex_m::asm::nop()
-}
-
-/// One measured call: paint, mark, call, mark, read the paint. The same code
-/// path serves the calibration, so the difference is the call's own cost.
-#[inline(never)]
-fn measure_one(call: fn([f32; 2]) -> u32, input: [f32; 2]) -> (u32, u32) {
-    // SAFETY: no interrupts are enabled in this program, the stack has far
-    // more than PAINT_BYTES of headroom on every board (see memory.x), and
-    // between paint and read only bench_mark (a leaf) and `call` run.
-    unsafe {
-        let sp = paint_below_sp();
-        bench_mark();
-        let out = call(input);
-        bench_mark();
-        (out, deepest_use(sp))
-    }
-}
+use vapora_firmware_example::stack_paint::PAINT_BYTES;
 
 fn run(m: &Measured) -> bool {
     hprintln!("function name={} calls={}", m.name, m.calls);

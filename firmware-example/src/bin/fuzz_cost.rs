@@ -19,42 +19,15 @@ use cortex_m_rt::entry;
 use cortex_m_semihosting::{debug, hprintln};
 use panic_semihosting as _;
 
+use vapora_firmware_example::bench::measure_one;
 use vapora_firmware_example::measured::{CorpusCall, CALIBRATION, CORPUS_CALLS};
-use vapora_firmware_example::stack_paint::{deepest_use, paint_below_sp, PAINT_BYTES};
+use vapora_firmware_example::stack_paint::PAINT_BYTES;
+use vapora_firmware_example::vector_file::{self, u32_at, VectorFileError};
 
 static VECTORS: &[u8] = include_bytes!("../../vectors/fuzz-corpus.bin");
 
 /// Functions in the file's header at most.
 const MAX_FUNCTIONS: usize = 64;
-
-/// The marker the instruction-count plugin watches (by address, found with
-/// llvm-nm). A leaf that pushes nothing, so it does not disturb the paint.
-#[no_mangle]
-#[inline(never)]
-pub extern "C" fn bench_mark() {
-    cortex_m::asm::nop()
-}
-
-/// One measured call: paint, mark, call, mark, read the paint (the same
-/// path as the sweep bench, so the calibration subtracts the same cost).
-#[inline(never)]
-fn measure_one(call: fn([f32; 2]) -> u32, input: [f32; 2]) -> (u32, u32) {
-    // SAFETY: no interrupts are enabled in this program, the stack has far
-    // more than PAINT_BYTES of headroom on every board (see memory.x), and
-    // between paint and read only bench_mark (a leaf) and `call` run.
-    unsafe {
-        let sp = paint_below_sp();
-        bench_mark();
-        let out = call(input);
-        bench_mark();
-        (out, deepest_use(sp))
-    }
-}
-
-fn u32_at(bytes: &[u8], at: usize) -> Option<u32> {
-    let b = bytes.get(at..at.checked_add(4)?)?;
-    Some(u32::from_le_bytes([b[0], b[1], b[2], b[3]]))
-}
 
 /// The header's function lines mapped to this build's corpus calls; `None`
 /// (after printing why) if one is unknown or there are too many.
@@ -79,24 +52,22 @@ fn calls_of(header: &str) -> Option<[Option<&'static CorpusCall>; MAX_FUNCTIONS]
 }
 
 fn run() -> bool {
-    if VECTORS.get(..4) != Some(b"VFZC".as_slice()) {
-        hprintln!("error vector file has no magic");
-        return false;
-    }
-    let Some(header_len) = u32_at(VECTORS, 4) else {
-        return false;
+    let file = match vector_file::open(VECTORS, b"VFZC") {
+        Ok(file) => file,
+        Err(VectorFileError::NoMagic) => {
+            hprintln!("error vector file has no magic");
+            return false;
+        }
+        Err(VectorFileError::BadHeader) => {
+            hprintln!("error vector file header unusable");
+            return false;
+        }
     };
-    let header_end = 8 + header_len as usize;
-    let header = VECTORS
-        .get(8..header_end)
-        .and_then(|h| core::str::from_utf8(h).ok());
-    let Some(calls) = header.and_then(calls_of) else {
+    let Some(calls) = calls_of(file.header) else {
         hprintln!("error vector file header unusable");
         return false;
     };
-    let Some(count) = u32_at(VECTORS, header_end) else {
-        return false;
-    };
+    let count = file.count;
 
     hprintln!("calibration calls={}", CALIBRATION.calls);
     for i in 0..CALIBRATION.calls {
@@ -104,7 +75,7 @@ fn run() -> bool {
         measure_one(core::hint::black_box(CALIBRATION.call), input);
     }
 
-    let mut at = header_end + 4;
+    let mut at = file.records_start;
     let mut ok = true;
     for index in 0..count {
         let (Some(&function), Some(a), Some(b), Some(selector), Some(&name_len)) = (
