@@ -157,6 +157,18 @@ pub fn fit_cubic(knots: &UniformKnots, xs: &[f64], ys: &[f64]) -> Result<Vec<[f6
 /// Cholesky solution of `a x = b` (row-major `n × n`); `a` and `b` are
 /// overwritten.
 fn solve_symmetric_positive(a: &mut [f64], b: &mut [f64], n: usize) -> Result<Vec<f64>, FitError> {
+    cholesky_factor(a, n)?;
+    cholesky_solve(a, n, b);
+    Ok(b.to_vec())
+}
+
+/// Cholesky factorisation in place: the lower triangle of the row-major
+/// `n × n` symmetric matrix `a` becomes L with a = L·Lᵀ (the upper triangle
+/// is left as it was).
+///
+/// # Errors
+/// [`FitError::Singular`] if `a` is not positive definite (or not finite).
+pub(crate) fn cholesky_factor(a: &mut [f64], n: usize) -> Result<(), FitError> {
     for j in 0..n {
         let mut d = a[j * n + j];
         for k in 0..j {
@@ -175,21 +187,26 @@ fn solve_symmetric_positive(a: &mut [f64], b: &mut [f64], n: usize) -> Result<Ve
             a[i * n + j] = s / d;
         }
     }
+    Ok(())
+}
+
+/// Solves L·Lᵀ x = b in place, L the lower triangle that
+/// [`cholesky_factor`] left in the row-major `n × n` `l`.
+pub(crate) fn cholesky_solve(l: &[f64], n: usize, b: &mut [f64]) {
     for i in 0..n {
         let mut s = b[i];
         for k in 0..i {
-            s -= a[i * n + k] * b[k];
+            s -= l[i * n + k] * b[k];
         }
-        b[i] = s / a[i * n + i];
+        b[i] = s / l[i * n + i];
     }
     for i in (0..n).rev() {
         let mut s = b[i];
         for k in i + 1..n {
-            s -= a[k * n + i] * b[k];
+            s -= l[k * n + i] * b[k];
         }
-        b[i] = s / a[i * n + i];
+        b[i] = s / l[i * n + i];
     }
-    Ok(b.to_vec())
 }
 
 /// Rounds power-form coefficients to the f32 the kernel stores.

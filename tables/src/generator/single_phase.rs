@@ -46,6 +46,7 @@ use std::string::String;
 use std::vec::Vec;
 
 use super::emit::{checksum, format_f32};
+use super::fit::{cholesky_factor, cholesky_solve};
 use crate::if97::{b23, region1, region2, region3, region4, viscosity, Properties};
 
 /// Number of quantities in a forward sheet.
@@ -359,25 +360,7 @@ impl Fitter {
                 }
             }
         }
-        // Cholesky, lower triangle in place.
-        for j in 0..m {
-            let mut d = a[j * m + j];
-            for k in 0..j {
-                d -= a[j * m + k] * a[j * m + k];
-            }
-            if d <= 0.0 {
-                return Err("singular single-phase fit".into());
-            }
-            let d = d.sqrt();
-            a[j * m + j] = d;
-            for i in j + 1..m {
-                let mut s = a[i * m + j];
-                for k in 0..j {
-                    s -= a[i * m + k] * a[j * m + k];
-                }
-                a[i * m + j] = s / d;
-            }
-        }
+        cholesky_factor(&mut a, m).map_err(|_| String::from("singular single-phase fit"))?;
         Ok(Self { n, rows, chol: a })
     }
 
@@ -389,21 +372,7 @@ impl Fitter {
                 b[i + r] += w[r] * y;
             }
         }
-        let l = &self.chol;
-        for i in 0..m {
-            let mut s = b[i];
-            for k in 0..i {
-                s -= l[i * m + k] * b[k];
-            }
-            b[i] = s / l[i * m + i];
-        }
-        for i in (0..m).rev() {
-            let mut s = b[i];
-            for k in i + 1..m {
-                s -= l[k * m + i] * b[k];
-            }
-            b[i] = s / l[i * m + i];
-        }
+        cholesky_solve(&self.chol, m, &mut b);
         b
     }
 }
