@@ -247,14 +247,7 @@ pub fn input_shape(function: &str) -> InputShape {
         // ---- application routines block (issue 5, branch apps): `a` and `b`
         // are the two inputs named in `check_application`, the selector picks
         // the remaining settings from a small list.
-        "steam_flowing_conditions"
-        | "water_flowing_conditions"
-        | "energy_flow_from_enthalpies_w"
-        | "energy_flow"
-        | "drum_level_from_densities"
-        | "drum_level"
-        | "throttling_calorimeter_dryness"
-        | "separating_throttling_dryness" => (true, true, APPLICATION_SELECTORS),
+        f if APPLICATION_FUNCTIONS.contains(&f) => (true, true, APPLICATION_SELECTORS),
         // ---- end of the application routines block
         "saturated_property_at_pressure" | "saturated_property_at_temperature" => {
             (true, false, PROPERTIES.len() as u32)
@@ -1030,14 +1023,7 @@ pub fn check(function: &str, a: f32, b: f32, selector: u32) -> Result<(), Violat
             check_single_phase_checksums(&SinglePhaseTables::compiled())
                 .map_err(|e| format!("single-phase checksums failed: {e}"))
         }
-        "steam_flowing_conditions"
-        | "water_flowing_conditions"
-        | "energy_flow_from_enthalpies_w"
-        | "energy_flow"
-        | "drum_level_from_densities"
-        | "drum_level"
-        | "throttling_calorimeter_dryness"
-        | "separating_throttling_dryness" => check_application(function, a, b, selector),
+        f if APPLICATION_FUNCTIONS.contains(&f) => check_application(function, a, b, selector),
         other => Err(format!("unknown kernel function {other}")),
     }
 }
@@ -1055,6 +1041,19 @@ use vapora_kernel::energy::{energy_flow, energy_flow_from_enthalpies_w, EnergyFl
 use vapora_kernel::flowing::{
     steam_flowing_conditions, water_flowing_conditions, FlowingConditions,
 };
+
+/// The application routines, as [`CHECKED_FUNCTIONS`] names them: they
+/// share one input shape and one checker ([`check_application`]).
+const APPLICATION_FUNCTIONS: [&str; 8] = [
+    "steam_flowing_conditions",
+    "water_flowing_conditions",
+    "energy_flow_from_enthalpies_w",
+    "energy_flow",
+    "drum_level_from_densities",
+    "drum_level",
+    "throttling_calorimeter_dryness",
+    "separating_throttling_dryness",
+];
 
 /// Selectors of the application routines: which of the fixed settings
 /// (alarm threshold, transmitter, calorimeter, water state) go with `a`, `b`.
