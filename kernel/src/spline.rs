@@ -164,28 +164,46 @@ fn interval(u: f32, n: u32) -> (usize, f32) {
 type Block<const Q: usize> = [&'static [[f32; Q]; 4]; 4];
 
 impl<const Q: usize> BicubicSheet<Q> {
+    /// The row length (y_intervals + 3) and the coefficients, if the sheet
+    /// is well formed: at least one interval each way and exactly
+    /// (x_intervals + 3)·(y_intervals + 3) coefficients. Every index the
+    /// look-ups compute from interval numbers clamped to the sheet is then
+    /// below that count, so their arithmetic cannot overflow and a single
+    /// range check covers each block. `None` for a malformed sheet (the
+    /// generator never writes one; the fields are public, so a sheet built
+    /// by hand is checked here, at the cost of one multiply and compare).
+    #[inline]
+    fn shape(&self) -> Option<(usize, &'static [[f32; Q]])> {
+        let coefficients: &'static [[f32; Q]] = self.coefficients;
+        let stride = usize::try_from(self.y_intervals).ok()?.checked_add(3)?;
+        let rows = usize::try_from(self.x_intervals).ok()?.checked_add(3)?;
+        if stride < 4 || rows < 4 || rows.checked_mul(stride)? != coefficients.len() {
+            return None;
+        }
+        Some((stride, coefficients))
+    }
+
     /// The x weights and the 4 × 4 block of coefficients around (x, y),
     /// with the y position. `None` only for a malformed sheet.
     #[inline]
     fn block(&self, x: f32, y: f32) -> Option<([f32; 4], f32, Block<Q>)> {
+        let (stride, coefficients) = self.shape()?;
         let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
         let (j, ty) = interval(y * self.y_intervals as f32, self.y_intervals);
-        let stride = (self.y_intervals as usize).checked_add(3)?;
-        let start = i.checked_mul(stride)?.checked_add(j)?;
-        // Rows i … i + 3 from column j: one slice, cut into rows of the
-        // stride (the last one only 4 long), so a single range check
-        // covers all 16 entries.
-        let len = stride.checked_mul(3)?.checked_add(4)?;
-        let coefficients: &'static [[f32; Q]] = self.coefficients;
-        let block = coefficients.get(start..start.checked_add(len)?)?;
-        // Offsets of rows 1 to 3 (no overflow: 3·stride + 4 fitted above).
-        let (s1, s2) = (stride, stride.wrapping_add(stride));
-        let s3 = s2.wrapping_add(stride);
+        // i ≤ x_intervals − 1 and j ≤ y_intervals − 1, so the block's last
+        // entry, i·stride + j + 3·stride + 3, is below (x_intervals + 3)·stride,
+        // the length checked by `shape`: no wrapping happens.
+        let start = i.wrapping_mul(stride).wrapping_add(j);
+        let (s2, s3) = (stride.wrapping_add(stride), stride.wrapping_mul(3));
+        // Rows i … i + 3 from column j: one slice (one range check), cut
+        // into four rows of four.
+        let block = coefficients.get(start..start.wrapping_add(s3).wrapping_add(4))?;
         let row = |o: usize| block.get(o..).and_then(|r| r.first_chunk::<4>());
-        Some((weights(tx), ty, [row(0)?, row(s1)?, row(s2)?, row(s3)?]))
+        Some((weights(tx), ty, [row(0)?, row(stride)?, row(s2)?, row(s3)?]))
     }
 
-    /// Every quantity at (x, y). `None` only for a malformed sheet (too few
+    /// Every quantity at (x, y). `None` only for a malformed sheet (no
+    /// interval in x or y, or not exactly (x_intervals + 3)·(y_intervals + 3)
     /// coefficients), which the generator never writes.
     #[inline]
     pub fn evaluate(&self, x: f32, y: f32) -> Option<[f32; Q]> {
@@ -234,12 +252,13 @@ impl<const Q: usize> BicubicSheet<Q> {
         }
         const SIXTH: f32 = 1.0 / 6.0;
         const FOUR_SIXTHS: f32 = 4.0 / 6.0;
+        let (stride, coefficients) = self.shape()?;
         let (i, tx) = interval((x - self.x_start) * self.x_inverse_step, self.x_intervals);
-        let stride = (self.y_intervals as usize).checked_add(3)?;
         let wx = weights(tx);
-        let start = i.checked_mul(stride)?;
-        let coefficients: &'static [[f32; Q]] = self.coefficients;
-        let block = coefficients.get(start..start.checked_add(stride.checked_mul(4)?)?)?;
+        // Rows i … i + 3 whole: (i + 4)·stride ≤ (x_intervals + 3)·stride,
+        // the length `shape` checked, so nothing wraps.
+        let start = i.wrapping_mul(stride);
+        let block = coefficients.get(start..start.wrapping_add(stride.wrapping_mul(4)))?;
         // The four rows; in each, the first interval's block starts at
         // column 0 and the last one's at y_intervals − 1, its non-zero
         // weights on the row's last three columns.
