@@ -2,7 +2,7 @@
 """Turns one run of the firmware cost bench into the cost tables.
 
     cost-table.py insns  STDOUT PLUGIN_LOG OUT_CSV
-    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL [SIZE_OUTPUT_WITHOUT_BASELINE] OUT_CSV
+    cost-table.py size   NM_OUTPUT SIZE_OUTPUT SIZE_OUTPUT_WITHOUT_KERNEL SIZE_OUTPUT_WITHOUT_LOOKUPS [SIZE_OUTPUT_WITHOUT_BASELINE] OUT_CSV
     cost-table.py ratio  COST_CSV OUT_CSV
     cost-table.py readme COST_DIR README
     cost-table.py corpus STDOUT PLUGIN_LOG SWEEP_CSV OUT_INPUTS_CSV OUT_CSV
@@ -17,10 +17,12 @@ Writes `function,calls,min_insns,median_insns,max_insns,stack_bytes`.
 
 size: NM_OUTPUT is `llvm-nm -S -C --defined-only ELF`, SIZE_OUTPUT is
 `llvm-size -A ELF`, SIZE_OUTPUT_WITHOUT_KERNEL the same for the bench built
-without the kernel's functions. Writes
-`component,code_bytes,table_bytes,static_ram_bytes`: `kernel` (the
-difference between the two images: what the kernel's functions add, code,
-tables and the library code they pull in), both images (code = vector table
+without the kernel's functions, SIZE_OUTPUT_WITHOUT_LOOKUPS for the bench
+built without the table look-ups measured on their own (`measured::LOOKUPS`).
+Writes `component,code_bytes,table_bytes,static_ram_bytes`: `kernel` (the
+image without the look-up rows less the image without the kernel: what the
+kernel's functions add, code, tables and the library code they pull in, as
+in a user's image), the images (code = vector table
 + .text; tables = .rodata + .data, the flash that holds constants and
 initial values; RAM = .data + .bss), and per-symbol detail rows for the
 crates of interest and the bench wrappers (with LTO, a function inlined into
@@ -112,7 +114,7 @@ def insns(stdout_path, log_path, out_path):
 CODE, TABLES, RAM = set("tT"), set("rR"), set("dDbB")
 
 
-def size(nm_path, size_path, size_without_kernel_path, *rest):
+def size(nm_path, size_path, size_without_kernel_path, size_without_lookups_path, *rest):
     *size_without_baseline_path, out_path = rest
     rows = {}
 
@@ -144,7 +146,10 @@ def size(nm_path, size_path, size_without_kernel_path, *rest):
     without = image(size_without_kernel_path)
     rows["image"] = full
     rows["image-without-kernel"] = without
-    rows["kernel"] = [a - b for a, b in zip(full, without)]
+    # The kernel's share from the image without the look-up rows measured
+    # on their own (their wrappers hold extra inlined copies of the look-ups).
+    rows["image-without-lookups"] = image(size_without_lookups_path)
+    rows["kernel"] = [a - b for a, b in zip(rows["image-without-lookups"], without)]
     if size_without_baseline_path:
         without_baseline = image(size_without_baseline_path[0])
         rows["image-without-baseline"] = without_baseline
@@ -233,6 +238,62 @@ def read_size(path):
     return {row[0]: [int(v) for v in row[1:]] for row in lines[1:]}
 
 
+# The generated single-phase tables, whose header states their flash.
+SINGLE_PHASE_TABLES = "kernel/src/tables/single_phase.rs"
+SINGLE_PHASE_BUDGET_BYTES = 160 * 1024
+
+
+def single_phase_table_bytes():
+    """Coefficient flash of the generated single-phase tables, from the
+    file's own header, or None if it cannot be read."""
+    try:
+        with open(SINGLE_PHASE_TABLES) as f:
+            m = re.search(r"Coefficient flash: (\d+) bytes", f.read(4096))
+    except OSError:
+        return None
+    return int(m.group(1)) if m else None
+
+
+def single_phase_floor(m4f):
+    """Where the single-phase calls' instructions go: the parts every
+    (p, T) and (p, h) call contains, each measured on its own in the same
+    run (worst case over its sweep)."""
+    need = ["saturation_temperature", "bicubic_sheet_evaluate", "bicubic_sheet_evaluate_one",
+            "phase_from_pressure_enthalpy"]
+    if any(n not in m4f for n in need):
+        return []
+    worst = {n: int(m4f[n]["max_insns"]) for n in need}
+    pt = worst["saturation_temperature"] + worst["bicubic_sheet_evaluate"]
+    ph = (worst["phase_from_pressure_enthalpy"] + worst["bicubic_sheet_evaluate_one"]
+          + worst["bicubic_sheet_evaluate"])
+    (pt_name, _, pt_target), (ph_name, _, ph_target) = SINGLE_PHASE_TARGETS
+    # 16 coefficients of each of 6 quantities; per quantity 4 rows of 4
+    # products plus 4 to combine the rows (the code of BicubicSheet::evaluate).
+    loads, products = 16 * 6, (4 * 4 + 4) * 6
+    table = single_phase_table_bytes()
+    budget = ("" if table is None else
+              f", while the tables fill {table / 1024:.0f} KiB of the "
+              f"{SINGLE_PHASE_BUDGET_BYTES // 1024} KiB budget")
+    return [
+        "",
+        "Where the single-phase calls' instructions go (Cortex-M4F, worst cases of rows above):",
+        "a (p, T) state needs T_sat(p) to choose the side of saturation and place the point on",
+        f"its sheet (`saturation_temperature`, {worst['saturation_temperature']}) and one look-up of the sheet's 4 × 4 block",
+        f"of six quantities (`bicubic_sheet_evaluate`, {worst['bicubic_sheet_evaluate']}, of which {loads + products} are the {loads}",
+        f"coefficient loads and {products} multiplies and multiply-adds of the interpolation itself, the",
+        "rest finding and clamping the cell and computing the eight B-spline weights):",
+        f"{pt} together against the target of {pt_target}, before the pressure and temperature",
+        "coordinates (logarithms of the stretch towards saturation), the range checks and the",
+        f"result (the whole call: {m4f[pt_name]['max_insns']}). A (p, h) state needs in addition the saturated",
+        f"enthalpies at p (as in `phase_from_pressure_enthalpy`, {worst['phase_from_pressure_enthalpy']}) and one quantity of",
+        f"the inverse sheet (`bicubic_sheet_evaluate_one`, {worst['bicubic_sheet_evaluate_one']}): {ph} against {ph_target} (the",
+        f"whole call: {m4f[ph_name]['max_insns']}). Meeting the targets would take fewer quantities per look-up (a",
+        "state without some of its properties) or a lower-order spline, whose error falls with",
+        "the cube of the knot spacing rather than its fourth power and so needs more knots for",
+        f"the same accuracy{budget}.",
+    ]
+
+
 def readme(cost_dir, readme_path):
     costs, sizes, ratios = {}, {}, {}
     for target, _ in CORES:
@@ -272,11 +333,19 @@ def readme(cost_dir, readme_path):
                          f"{r['min_insns']} / {r['median_insns']} / {r['max_insns']}, "
                          f"{r['stack_bytes']} B")
         lines.append(f"| `{name}` | " + " | ".join(cells) + " |")
+    if any(costs[t].get(n) is None for t, _ in CORES for n in kernel_rows):
+        lines += [
+            "",
+            "– : not measured on that core (the look-up rows are left out of the micro:bit's",
+            "bench, whose 256 KiB of flash have no room for their wrappers).",
+        ]
     lines += [
         "",
         "Flash and static RAM, bytes: what the kernel's functions add to an image (the",
         "difference between the bench linked with and without them, including the library",
-        "code only they pull in); the same for the f64 formulation baseline:",
+        "code only they pull in, and leaving out the `bicubic_sheet_*` rows, which measure",
+        "look-ups a user's image has only inside the calls above); the same for the f64",
+        "formulation baseline:",
         "",
         "| | " + cores + " |",
         "|---|" + "---|" * len(CORES),
@@ -345,6 +414,7 @@ def readme(cost_dir, readme_path):
     verdict = "met" if stack <= STACK_TARGET_BYTES else "**missed**"
     lines.append(f"| stack ≤ {STACK_TARGET_BYTES} bytes for any call | {stack} (`{deepest}`) "
                  f"| {verdict} |")
+    lines += single_phase_floor(costs[m4f])
     lines += [END]
     section = "\n".join(lines)
     with open(readme_path) as f:
@@ -583,7 +653,7 @@ def corpus_readme(corpus_path, readme_path):
 
 
 if __name__ == "__main__":
-    arguments = {"insns": (3,), "size": (4, 5), "ratio": (2,), "readme": (2,),
+    arguments = {"insns": (3,), "size": (5, 6), "ratio": (2,), "readme": (2,),
                  "corpus": (5,), "corpus-readme": (2,)}
     if len(sys.argv) < 2 or len(sys.argv) - 2 not in arguments.get(sys.argv[1], ()):
         fail(__doc__)

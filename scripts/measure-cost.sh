@@ -10,8 +10,10 @@
 #   function,calls,min_insns,median_insns,max_insns,stack_bytes
 # target/cost/<target>-size.csv
 #   component,code_bytes,table_bytes,static_ram_bytes
-# whose `kernel` row is the difference between the bench image and the same
-# bench built without the kernel's functions (feature without-kernel), and
+# whose `kernel` row is the difference between the bench built without the
+# separately measured table look-ups (feature without-lookups: a user's
+# image has them only inside the kernel's calls) and the same bench built
+# without the kernel's functions (feature without-kernel), and
 # `baseline` row the same for the f64 formulation (feature without-baseline);
 # and target/cost/<target>-ratio.csv, the f64 formulation's cost over the
 # kernel's per function (median and worst case over the same inputs).
@@ -33,6 +35,8 @@ for t in "${targets[@]}"; do
   # same ELF path).
   fw_cargo build --release --target "$t" --bin cost --features without-kernel
   "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size-without-kernel.txt"
+  fw_cargo build --release --target "$t" --bin cost --features without-lookups
+  "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size-without-lookups.txt"
   fw_cargo build --release --target "$t" --bin cost --features without-baseline
   "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size-without-baseline.txt"
   fw_cargo build --release --target "$t" --bin cost
@@ -55,7 +59,8 @@ for t in "${targets[@]}"; do
   "$VAPORA_NM" -S -C --defined-only "$elf" >"target/cost/$t.nm.txt"
   "$VAPORA_SIZE" -A "$elf" >"target/cost/$t.size.txt"
   python3 scripts/cost-table.py size "target/cost/$t.nm.txt" "target/cost/$t.size.txt" \
-    "target/cost/$t.size-without-kernel.txt" "target/cost/$t.size-without-baseline.txt" \
+    "target/cost/$t.size-without-kernel.txt" "target/cost/$t.size-without-lookups.txt" \
+    "target/cost/$t.size-without-baseline.txt" \
     "target/cost/$t-size.csv"
   python3 scripts/cost-table.py ratio "target/cost/$t.csv" "target/cost/$t-ratio.csv"
   echo "== $t (instructions per call, not cycles)"

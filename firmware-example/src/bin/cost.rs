@@ -1,4 +1,4 @@
-//! Cost bench: calls every function of `measured::KERNEL`,
+//! Cost bench: calls every function of `measured::KERNEL`, `measured::LOOKUPS`,
 //! `measured::BASELINE` and `measured::STAND_INS` over its sweep,
 //! with `bench_mark()` right before and right after each call, and paints
 //! the stack before each call to measure its depth.
@@ -16,7 +16,9 @@ use cortex_m_semihosting::{debug, hprintln};
 use panic_semihosting as _;
 
 use vapora_firmware_example::bench::measure_one;
-use vapora_firmware_example::measured::{Measured, BASELINE, CALIBRATION, KERNEL, STAND_INS};
+use vapora_firmware_example::measured::{
+    Measured, BASELINE, CALIBRATION, KERNEL, LOOKUPS, STAND_INS,
+};
 use vapora_firmware_example::stack_paint::PAINT_BYTES;
 
 fn run(m: &Measured) -> bool {
@@ -54,7 +56,7 @@ fn main() -> ! {
         "begin firmware=cost board={} paint_bytes={} functions={}",
         env!("VAPORA_BOARD"),
         PAINT_BYTES,
-        KERNEL.len() + BASELINE.len() + STAND_INS.len()
+        KERNEL.len() + LOOKUPS.len() + BASELINE.len() + STAND_INS.len()
     );
     let mut ok = run(&CALIBRATION);
     // Without the kernel's functions referenced, the linker drops their
@@ -62,6 +64,11 @@ fn main() -> ! {
     if !cfg!(feature = "without-kernel") {
         for m in KERNEL {
             ok &= run(m);
+        }
+        if !cfg!(feature = "without-lookups") {
+            for m in LOOKUPS {
+                ok &= run(m);
+            }
         }
     }
     if !cfg!(feature = "without-baseline") {
